@@ -1,0 +1,102 @@
+import { existsSync } from 'node:fs';
+import { join } from 'node:path';
+import express, { type Express } from 'express';
+import session from 'express-session';
+import helmet from 'helmet';
+import type { DataSource } from 'typeorm';
+import { requireCsrfToken } from './http/csrf';
+import { apiNotFound, errorHandler } from './http/error-handler';
+import { authRouter } from './modules/auth/auth.router';
+import { createPassport } from './modules/auth/passport';
+import { healthRouter } from './modules/health/health.router';
+import { DatabaseSessionStore } from './modules/sessions/database-session-store';
+import { usersRouter } from './modules/users/users.router';
+
+export interface AppOptions {
+  sessionSecret: string;
+  /** Express "trust proxy"; when set, cookies are marked secure on TLS requests. */
+  trustProxy?: string;
+  /** Built client to serve (dist/client); omitted in API tests. */
+  clientDir?: string;
+}
+
+const sessionLifetimeMs = 7 * 24 * 60 * 60 * 1000;
+
+/** Builds the Express app on an open data source. It does not listen; index.ts and the tests do. */
+export function createApp(dataSource: DataSource, options: AppOptions): Express {
+  const app = express();
+  app.disable('x-powered-by');
+  if (options.trustProxy) app.set('trust proxy', parseTrustProxy(options.trustProxy));
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          defaultSrc: ["'self'"],
+          // Charts run through vega-interpreter, so no 'unsafe-eval' is needed.
+          scriptSrc: ["'self'"],
+          // Chart tooltips and embed actions set inline styles.
+          styleSrc: ["'self'", "'unsafe-inline'"],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          fontSrc: ["'self'"],
+          connectSrc: ["'self'"],
+          frameSrc: ["'self'"],
+          objectSrc: ["'none'"],
+          baseUri: ["'self'"],
+          formAction: ["'self'"],
+          frameAncestors: ["'self'"],
+          upgradeInsecureRequests: null,
+        },
+      },
+    }),
+  );
+
+  const sessionStore = new DatabaseSessionStore(dataSource);
+  app.locals.sessionStore = sessionStore;
+  const passport = createPassport(dataSource);
+
+  const api = express.Router();
+  api.use(express.json({ limit: '2mb' }));
+  api.use(
+    session({
+      name: 'kcatalog.sid',
+      secret: options.sessionSecret,
+      store: sessionStore,
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      proxy: Boolean(options.trustProxy),
+      cookie: {
+        httpOnly: true,
+        sameSite: 'lax',
+        secure: options.trustProxy ? 'auto' : false,
+        maxAge: sessionLifetimeMs,
+      },
+    }),
+  );
+  api.use(passport.session());
+  api.use('/health', healthRouter());
+  api.use(requireCsrfToken);
+  api.use('/auth', authRouter(dataSource, passport, sessionStore));
+  api.use('/users', usersRouter(dataSource, sessionStore));
+  api.use(apiNotFound);
+  app.use('/api', api);
+
+  if (options.clientDir && existsSync(join(options.clientDir, 'index.html'))) {
+    const clientDir = options.clientDir;
+    app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
+    // Client routes (Express 5 syntax for "everything else").
+    app.get('/{*splat}', (_req, res) => {
+      res.sendFile(join(clientDir, 'index.html'));
+    });
+  }
+
+  app.use(errorHandler);
+  return app;
+}
+
+function parseTrustProxy(value: string): boolean | number | string {
+  if (value === 'true') return true;
+  if (value === 'false') return false;
+  return /^\d+$/.test(value) ? Number(value) : value;
+}

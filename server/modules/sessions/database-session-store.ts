@@ -1,0 +1,89 @@
+import session from 'express-session';
+import { LessThan, type DataSource, type Repository } from 'typeorm';
+import { SessionRecord } from './session.entity';
+
+const defaultLifetimeMs = 7 * 24 * 60 * 60 * 1000;
+const pruneIntervalMs = 15 * 60 * 1000;
+
+type Callback<T = void> = (error?: unknown, value?: T) => void;
+
+/**
+ * express-session store on the application's own database. Written here because the packaged SQLite
+ * stores either keep Node from exiting or need an older TypeORM. Expired rows are pruned on a timer
+ * that does not hold the process open.
+ */
+export class DatabaseSessionStore extends session.Store {
+  private readonly repository: Repository<SessionRecord>;
+  private readonly pruneTimer: NodeJS.Timeout;
+
+  constructor(dataSource: DataSource) {
+    super();
+    this.repository = dataSource.getRepository(SessionRecord);
+    this.pruneTimer = setInterval(() => void this.prune(), pruneIntervalMs);
+    this.pruneTimer.unref();
+  }
+
+  override get = (sid: string, callback: Callback<session.SessionData | null>) => {
+    this.repository
+      .findOneBy({ sid })
+      .then((record) => {
+        if (!record || record.expiresAt <= Date.now()) return callback(undefined, null);
+        callback(undefined, JSON.parse(record.data) as session.SessionData);
+      })
+      .catch((error: unknown) => callback(error));
+  };
+
+  override set = (sid: string, data: session.SessionData, callback?: Callback) => {
+    this.repository
+      .save(this.toRecord(sid, data))
+      .then(() => callback?.())
+      .catch((error: unknown) => callback?.(error));
+  };
+
+  override touch = (sid: string, data: session.SessionData, callback?: Callback) => {
+    this.repository
+      .update({ sid }, { expiresAt: expiryOf(data) })
+      .then(() => callback?.())
+      .catch((error: unknown) => callback?.(error));
+  };
+
+  override destroy = (sid: string, callback?: Callback) => {
+    this.repository
+      .delete({ sid })
+      .then(() => callback?.())
+      .catch((error: unknown) => callback?.(error));
+  };
+
+  /** Ends every session of a user (deactivation, password change). */
+  async destroyAllForUser(userId: number): Promise<void> {
+    await this.repository.delete({ userId });
+  }
+
+  /** Stops the prune timer (tests, shutdown). */
+  close(): void {
+    clearInterval(this.pruneTimer);
+  }
+
+  private async prune(): Promise<void> {
+    await this.repository.delete({ expiresAt: LessThan(Date.now()) }).catch(() => undefined);
+  }
+
+  private toRecord(sid: string, data: session.SessionData): SessionRecord {
+    const record = new SessionRecord();
+    record.sid = sid;
+    record.data = JSON.stringify(data);
+    record.expiresAt = expiryOf(data);
+    record.userId = userIdOf(data);
+    return record;
+  }
+}
+
+function expiryOf(data: session.SessionData): number {
+  const expires = data.cookie?.expires;
+  return expires ? new Date(expires).getTime() : Date.now() + defaultLifetimeMs;
+}
+
+function userIdOf(data: session.SessionData): number | null {
+  const passportUser = (data as { passport?: { user?: unknown } }).passport?.user;
+  return typeof passportUser === 'number' ? passportUser : null;
+}
