@@ -1,0 +1,76 @@
+import { NavLink, Outlet, useNavigate } from 'react-router-dom';
+import { can, roleLabels, type Action } from '@shared/auth/permissions';
+import type { SessionUserDto } from '@shared/schemas/auth';
+import { BrandMark } from '@/components/ui/brand-mark';
+import { paths } from '@/config/paths';
+import { useSignOut } from '@/features/auth/api/sign-out';
+
+interface NavItem {
+  to: string;
+  label: string;
+  /** Shown only to roles that may perform this action. */
+  action: Action;
+}
+
+const navigation: NavItem[] = [
+  { to: paths.adminUsers.href(), label: 'Admin', action: 'users:manage' },
+  { to: paths.about.href(), label: 'About', action: 'read' },
+];
+
+export function AppShell({ user }: { user: SessionUserDto }) {
+  const navigate = useNavigate();
+  const signOut = useSignOut();
+
+  const handleSignOut = () => {
+    signOut.mutate(undefined, { onSuccess: () => navigate(paths.signIn.href(), { replace: true }) });
+  };
+
+  return (
+    <div className="flex min-h-screen flex-col">
+      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:px-3 focus:py-2">
+        Skip to content
+      </a>
+      <header className="bg-lagoon-900 text-paper-100">
+        <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-8 gap-y-2 px-4 py-2.5">
+          <NavLink to={paths.home.href()} className="flex items-center gap-2 text-lg font-semibold tracking-tight text-white">
+            <BrandMark />
+            Kcatalog
+          </NavLink>
+          <nav aria-label="Main" className="flex flex-1 flex-wrap gap-1">
+            {navigation
+              .filter((item) => can(user.role, item.action))
+              .map((item) => (
+                <NavLink
+                  key={item.to}
+                  to={item.to}
+                  className={({ isActive }) =>
+                    `rounded-md px-3 py-1.5 text-sm font-medium ${isActive ? 'bg-lagoon-700 text-white' : 'text-lagoon-100 hover:bg-lagoon-800 hover:text-white'}`
+                  }
+                >
+                  {item.label}
+                </NavLink>
+              ))}
+          </nav>
+          <div className="flex items-center gap-3 text-sm">
+            <span>
+              <span className="font-medium text-white">{user.name}</span>{' '}
+              <span className="rounded bg-lagoon-700 px-1.5 py-0.5 text-xs uppercase tracking-wide text-lagoon-100">{roleLabels[user.role]}</span>
+            </span>
+            <NavLink to={paths.changePassword.href()} className="text-lagoon-100 underline-offset-2 hover:underline">
+              Password
+            </NavLink>
+            <button type="button" onClick={handleSignOut} className="rounded-md border border-lagoon-600 px-2.5 py-1 text-lagoon-100 hover:bg-lagoon-800">
+              Sign out
+            </button>
+          </div>
+        </div>
+      </header>
+      <main id="main" className="mx-auto w-full max-w-7xl flex-1 px-4 py-6">
+        <Outlet />
+      </main>
+      <footer className="border-t border-paper-200 py-3 text-center text-xs text-ink-500">
+        For research use only. Fitted values are estimates; the scientist decides.
+      </footer>
+    </div>
+  );
+}
