@@ -43,6 +43,19 @@ export default {
           600: '#a85616',
           700: '#854311',
         },
+        // Catalytic roles on the sequence map: the Okabe–Ito colour-blind-safe palette (Okabe & Ito 2008,
+        // "Color Universal Design"), always shown with a legend and a role letter.
+        role: {
+          nucleophile: '#D55E00',
+          'general-acid': '#CC79A7',
+          'general-base': '#0072B2',
+          'acid-base': '#E69F00',
+          'metal-ligand': '#009E73',
+          'oxyanion-hole': '#56B4E9',
+          'substrate-binding': '#F0E442',
+          electrostatic: '#222222',
+          other: '#8c8c8c',
+        },
         signal: {
           danger: '#a8261b',
           'danger-soft': '#fbe9e7',
