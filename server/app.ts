@@ -6,11 +6,20 @@ import helmet from 'helmet';
 import type { DataSource } from 'typeorm';
 import { requireCsrfToken } from './http/csrf';
 import { apiNotFound, errorHandler } from './http/error-handler';
+import { assaysRouter } from './modules/assays/assays.router';
+import { auditRouter } from './modules/audit/audit.router';
 import { authRouter } from './modules/auth/auth.router';
 import { createPassport } from './modules/auth/passport';
+import { campaignsRouter } from './modules/campaigns/campaigns.router';
+import { comparisonsRouter } from './modules/comparisons/comparisons.router';
+import { enzymesRouter } from './modules/enzymes/enzymes.router';
+import { fitsRouter } from './modules/fits/fits.router';
 import { healthRouter } from './modules/health/health.router';
+import { measurementsRouter } from './modules/measurements/measurements.router';
+import { phProfilesRouter } from './modules/ph-profiles/ph-profiles.router';
 import { DatabaseSessionStore } from './modules/sessions/database-session-store';
 import { usersRouter } from './modules/users/users.router';
+import { variantsRouter } from './modules/variants/variants.router';
 
 export interface AppOptions {
   sessionSecret: string;
@@ -79,6 +88,16 @@ export function createApp(dataSource: DataSource, options: AppOptions): Express 
   api.use(requireCsrfToken);
   api.use('/auth', authRouter(dataSource, passport, sessionStore));
   api.use('/users', usersRouter(dataSource, sessionStore));
+  // Before the /variants and /campaigns routers: it serves /variants/:id/comparison and /campaigns/:id/{cycles,landscape}.
+  api.use(comparisonsRouter(dataSource));
+  api.use('/assays', assaysRouter(dataSource));
+  api.use('/measurements', measurementsRouter(dataSource));
+  api.use('/ph-profiles', phProfilesRouter(dataSource));
+  api.use('/fits', fitsRouter());
+  api.use('/enzymes', enzymesRouter(dataSource));
+  api.use('/campaigns', campaignsRouter(dataSource));
+  api.use('/variants', variantsRouter(dataSource));
+  api.use('/audit', auditRouter(dataSource));
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -29,7 +29,7 @@ export const actions = [
   'digests:manage',
   /** Import spreadsheets. */
   'imports:write',
-  /** Manage users, roles and invitations; read the outbox and the audit log. */
+  /** Manage users, roles and invitations; read the outbox. (The audit trail is readable with `read`: the Overview shows recent activity to everyone.) */
   'users:manage',
 ] as const;
 export type Action = (typeof actions)[number];

@@ -214,3 +214,72 @@ export const updateEnzymeInput = z
     { message: 'give at least one field to change', path: ['name'] },
   );
 export type UpdateEnzymeInput = z.infer<typeof updateEnzymeInput>;
+
+/** A catalytic site added on its own (`POST /api/enzymes/:id/sites`), with an optional note. */
+export const createCatalyticSiteInput = catalyticSiteInput.extend({
+  note: z
+    .string({ error: 'must be text or null' })
+    .trim()
+    .max(500, 'must be at most 500 characters')
+    .nullable()
+    .transform((value) => (value === null || value === '' ? null : value))
+    .optional(),
+});
+export type CreateCatalyticSiteInput = z.infer<typeof createCatalyticSiteInput>;
+
+/** Largest FASTA text accepted, in bytes (uploaded) or characters (posted as JSON): 1 MiB. */
+export const maxFastaBytes = 1_048_576;
+
+/** FASTA text posted as JSON to `POST /api/enzymes/fasta` instead of a file. */
+export const fastaTextInput = z.object({
+  fasta: z
+    .string({ error: 'is required (FASTA text, or upload a file in the field "file")' })
+    .min(1, 'is required')
+    .max(maxFastaBytes, `must be at most ${maxFastaBytes} characters`),
+});
+export type FastaTextInput = z.infer<typeof fastaTextInput>;
+
+/** An annotated residue as the API returns it. */
+export interface CatalyticSiteDto {
+  id: number;
+  enzymeId: number;
+  position: number;
+  /** One-letter residue. */
+  residue: string;
+  role: CatalyticRole;
+  expectedPka: number | null;
+  note: string | null;
+}
+
+/** An enzyme in the list: everything but the sequence itself. */
+export interface EnzymeSummaryDto {
+  id: number;
+  name: string;
+  ecNumber: string | null;
+  accession: string | null;
+  organism: string;
+  sequenceLength: number;
+  cofactors: Cofactor[];
+  otherCofactors: string | null;
+  siteCount: number;
+  campaignCount: number;
+  version: number;
+  createdAt: string;
+  updatedAt: string;
+}
+
+/** One enzyme with its sequence, sites (by position) and the campaigns on it. */
+export interface EnzymeDto extends EnzymeSummaryDto {
+  sequence: string;
+  sites: CatalyticSiteDto[];
+  campaigns: { id: number; name: string }[];
+}
+
+/** One record of an uploaded FASTA file, for the client to pick from. */
+export interface FastaRecordDto {
+  header: string;
+  id: string;
+  description: string;
+  sequence: string;
+  length: number;
+}

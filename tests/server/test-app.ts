@@ -7,8 +7,7 @@ import type { DataSource } from 'typeorm';
 import { createApp } from '@server/app';
 import { openDatabase } from '@server/data-source';
 import type { DatabaseSessionStore } from '@server/modules/sessions/database-session-store';
-import { demoPassword } from '@server/seed/demo-accounts';
-import { seedDemoIfEmpty } from '@server/seed/seed';
+import { demoPassword, seedDemoAccounts } from '@server/seed/demo-accounts';
 
 export const testSecret = 'test-session-secret-that-is-long-enough-0123456789';
 
@@ -19,10 +18,10 @@ export interface TestApp {
   close: () => Promise<void>;
 }
 
-/** An app on a fresh SQLite file in a temporary folder, migrated and seeded with the demo accounts. */
+/** An app on a fresh SQLite file in a temporary folder, migrated, with the demo accounts (not the demo campaign). */
 export async function createTestApp(dataDir = mkdtempSync(join(tmpdir(), 'kcatalog-test-'))): Promise<TestApp> {
   const dataSource = await openDatabase({ database: join(dataDir, 'kcatalog.sqlite') });
-  await seedDemoIfEmpty(dataSource);
+  if ((await dataSource.query('SELECT COUNT(*) AS n FROM users'))[0].n === 0) await seedDemoAccounts(dataSource);
   const app = createApp(dataSource, { sessionSecret: testSecret });
   return {
     app,

@@ -1,8 +1,7 @@
 import { Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn, UpdateDateColumn, VersionColumn, type Relation } from 'typeorm';
+import type { CampaignStatus } from '@shared/schemas/campaign';
 import { Enzyme } from '../enzymes/enzyme.entity';
 import { User } from '../users/user.entity';
-
-export type CampaignStatus = 'active' | 'paused' | 'closed';
 
 /** An engineering campaign on one parent enzyme, with the conditions its variants are judged under. */
 @Entity('campaigns')

@@ -1,10 +1,8 @@
 import { Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, OneToMany, PrimaryGeneratedColumn, UpdateDateColumn, VersionColumn, type Relation } from 'typeorm';
+import type { VariantStatus } from '@shared/schemas/variant';
 import { Campaign } from '../campaigns/campaign.entity';
 import { Enzyme } from '../enzymes/enzyme.entity';
 import { Mutation } from './mutation.entity';
-
-export const variantStatuses = ['designed', 'cloned', 'sequence-verified', 'expressed', 'purified', 'characterized', 'failed', 'archived'] as const;
-export type VariantStatus = (typeof variantStatuses)[number];
 
 /**
  * A set of point mutations on a campaign's parent enzyme. The empty set is the campaign's parent
