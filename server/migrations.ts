@@ -1,5 +1,6 @@
 import { CreateUsersAndSessions1764604800000 } from '../migrations/1764604800000-create-users-and-sessions';
 import { CreateRegistry1796145321705 } from '../migrations/1796145321705-create-registry';
+import { AddUserPreferences1796147746489 } from '../migrations/1796147746489-add-user-preferences';
 
 /** Every migration, oldest first. */
-export const migrations = [CreateUsersAndSessions1764604800000, CreateRegistry1796145321705];
+export const migrations = [CreateUsersAndSessions1764604800000, CreateRegistry1796145321705, AddUserPreferences1796147746489];

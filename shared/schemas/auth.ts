@@ -52,6 +52,17 @@ export const updateUserInput = z
   });
 export type UpdateUserInput = z.infer<typeof updateUserInput>;
 
+export const energyUnits = ['kJ/mol', 'kcal/mol'] as const;
+export type EnergyUnit = (typeof energyUnits)[number];
+
+/** Display preferences remembered per user. */
+export const userPreferencesInput = z
+  .object({
+    energyUnit: z.enum(energyUnits, { error: `must be one of ${energyUnits.join(', ')}` }).optional(),
+  })
+  .strict();
+export type UserPreferences = z.infer<typeof userPreferencesInput>;
+
 /** The user as the API returns it. */
 export interface UserDto {
   id: number;
@@ -64,4 +75,4 @@ export interface UserDto {
 }
 
 /** The signed-in user as `/api/auth/me` and sign-in return it. */
-export type SessionUserDto = Pick<UserDto, 'id' | 'email' | 'name' | 'role'>;
+export type SessionUserDto = Pick<UserDto, 'id' | 'email' | 'name' | 'role'> & { preferences: UserPreferences };

@@ -34,7 +34,7 @@ describe('POST /api/auth/sign-in', () => {
       .send({ email: 'Lead@KCatalog.example', password: 'kcatalog-demo' })
       .expect(200);
     expect(response.body.user).toMatchObject({ email: 'lead@kcatalog.example', role: 'lead' });
-    expect(Object.keys(response.body.user).sort()).toEqual(['email', 'id', 'name', 'role']);
+    expect(Object.keys(response.body.user).sort()).toEqual(['email', 'id', 'name', 'preferences', 'role']);
     const me = await session.agent.get('/api/auth/me').expect(200);
     expect(me.body.user.email).toBe('lead@kcatalog.example');
   });
@@ -179,6 +179,19 @@ describe('sessions', () => {
       .send({ currentPassword: 'kcatalog-demo', newPassword: 'short' })
       .expect(400);
     expect(short.body.error.fields.newPassword).toBe('must be at least 10 characters');
+  });
+});
+
+describe('PATCH /api/auth/preferences', () => {
+  it('remembers the energy unit per user and refuses unknown units', async () => {
+    const session = await signedIn(testApp.app, demoEmail('lead'));
+    const saved = await session.agent.patch('/api/auth/preferences').set('X-CSRF-Token', session.csrfToken).send({ energyUnit: 'kcal/mol' }).expect(200);
+    expect(saved.body.preferences).toEqual({ energyUnit: 'kcal/mol' });
+    expect((await session.agent.get('/api/auth/me')).body.user.preferences).toEqual({ energyUnit: 'kcal/mol' });
+    const other = await signedIn(testApp.app, demoEmail('viewer'));
+    expect((await other.agent.get('/api/auth/me')).body.user.preferences).toEqual({});
+    const bad = await session.agent.patch('/api/auth/preferences').set('X-CSRF-Token', session.csrfToken).send({ energyUnit: 'eV' }).expect(400);
+    expect(bad.body.error.fields.energyUnit).toBe('must be one of kJ/mol, kcal/mol');
   });
 });
 

@@ -1,14 +1,14 @@
 import { Router, type Request } from 'express';
 import type { PassportStatic } from 'passport';
 import type { DataSource } from 'typeorm';
-import { changePasswordInput, signInInput, type SessionUserDto } from '@shared/schemas/auth';
+import { changePasswordInput, signInInput, userPreferencesInput, type SessionUserDto } from '@shared/schemas/auth';
 import { requireSignIn } from '../../http/auth';
 import { csrfTokenFor, rotateCsrfToken } from '../../http/csrf';
 import { invalidCredentials } from '../../http/errors';
 import { validateBody } from '../../http/validate';
 import { demoPassword, existingDemoAccounts } from '../../seed/demo-accounts';
 import type { DatabaseSessionStore } from '../sessions/database-session-store';
-import { changePassword, recordSignIn } from '../users/users.service';
+import { changePassword, recordSignIn, updatePreferences } from '../users/users.service';
 import { signInLimits } from './sign-in-limits';
 
 function logIn(req: Request, user: SessionUserDto): Promise<void> {
@@ -57,6 +57,10 @@ export function authRouter(dataSource: DataSource, passport: PassportStatic, ses
 
   router.get('/me', requireSignIn, (req, res) => {
     res.json({ user: req.user });
+  });
+
+  router.patch('/preferences', requireSignIn, validateBody(userPreferencesInput), async (req, res) => {
+    res.json({ preferences: await updatePreferences(dataSource, req.user!.id, req.body) });
   });
 
   router.post('/password', requireSignIn, validateBody(changePasswordInput), async (req, res) => {

@@ -1,5 +1,6 @@
 import { Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn, UpdateDateColumn, VersionColumn } from 'typeorm';
 import type { Role } from '@shared/auth/permissions';
+import type { UserPreferences } from '@shared/schemas/auth';
 
 /** A person who signs in. */
 @Entity('users')
@@ -25,6 +26,10 @@ export class User {
   /** A deactivated user can no longer sign in and their sessions stop working. */
   @Column({ type: 'boolean', default: true })
   active: boolean;
+
+  /** Display preferences the client remembers for this user (e.g. the ΔΔG‡ energy unit). */
+  @Column({ type: 'simple-json', default: '{}' })
+  preferences: UserPreferences;
 
   @Column({ type: 'datetime', name: 'last_sign_in_at', nullable: true })
   lastSignInAt: Date | null;

@@ -1,5 +1,5 @@
 import type { DataSource } from 'typeorm';
-import type { CreateUserInput, SessionUserDto, UpdateUserInput, UserDto } from '@shared/schemas/auth';
+import type { CreateUserInput, SessionUserDto, UpdateUserInput, UserDto, UserPreferences } from '@shared/schemas/auth';
 import { badRequest, conflict, notFound, staleVersion } from '../../http/errors';
 import { hashPassword, verifyPassword } from './password';
 import { User } from './user.entity';
@@ -17,7 +17,17 @@ export function toUserDto(user: User): UserDto {
 }
 
 export function toSessionUser(user: User): SessionUserDto {
-  return { id: user.id, email: user.email, name: user.name, role: user.role };
+  return { id: user.id, email: user.email, name: user.name, role: user.role, preferences: user.preferences ?? {} };
+}
+
+/** Merges display preferences into the user's stored ones; not versioned, the last choice wins. */
+export async function updatePreferences(dataSource: DataSource, userId: number, changes: UserPreferences): Promise<UserPreferences> {
+  const repository = dataSource.getRepository(User);
+  const user = await repository.findOneBy({ id: userId });
+  if (!user) throw notFound('The user');
+  const preferences = { ...user.preferences, ...changes };
+  await dataSource.query(`UPDATE "users" SET "preferences" = ? WHERE "id" = ?`, [JSON.stringify(preferences), userId]);
+  return preferences;
 }
 
 // A real hash of a random password, so unknown e-mail addresses cost the same time as wrong passwords.
