@@ -2,6 +2,16 @@ import type { DataSource, EntityManager } from 'typeorm';
 
 // One queue per data source (the tests open several in one process).
 const queues = new WeakMap<DataSource, Promise<unknown>>();
+const revisions = new WeakMap<DataSource, number>();
+
+/**
+ * A number that changes after every write transaction on the data source. Read caches (such as the
+ * registry's counts) keep the revision they were computed at and are void once it moves on; every
+ * write of registry data goes through {@link writeTransaction}, so nothing can change behind it.
+ */
+export function writeRevision(dataSource: DataSource): number {
+  return revisions.get(dataSource) ?? 0;
+}
 
 /**
  * Runs `work` in a database transaction, one at a time per data source.
@@ -20,7 +30,9 @@ const queues = new WeakMap<DataSource, Promise<unknown>>();
  */
 export function writeTransaction<T>(dataSource: DataSource, work: (manager: EntityManager) => Promise<T>): Promise<T> {
   const previous = queues.get(dataSource) ?? Promise.resolve();
-  const run = previous.then(() => dataSource.transaction(work));
+  const bump = () => revisions.set(dataSource, writeRevision(dataSource) + 1);
+  // Bumped on rollback too: harmless, and a transaction that failed half-way might still have run statements.
+  const run = previous.then(() => dataSource.transaction(work)).finally(bump);
   queues.set(
     dataSource,
     run.catch(() => undefined),

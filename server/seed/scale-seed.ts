@@ -8,6 +8,7 @@
 import type { DataSource } from 'typeorm';
 import { formatMutationHgvs, formatMutationLabel, mutationKey, type Mutation } from '@shared/mutations/format-mutations';
 import { standardAminoAcids } from '@shared/sequence/amino-acids';
+import { recomputeVariantSummaries } from '../modules/comparisons/variant-summary';
 import { hashPassword } from '../modules/users/password';
 import { demoPassword } from './demo-accounts';
 import { seededRandom } from './seeded-random';
@@ -134,6 +135,10 @@ export async function seedScaleRegistry(dataSource: DataSource): Promise<{ varia
     );
     counts.measurements += 1;
   }
+
+  // Summaries through the same code the API uses, so the registry sorts on real comparisons.
+  const campaigns = (await dataSource.query('SELECT id FROM campaigns')) as { id: number }[];
+  for (const { id } of campaigns) await dataSource.transaction((manager) => recomputeVariantSummaries(manager, id));
 
   return counts;
 }

@@ -1,7 +1,7 @@
 import passport, { type PassportStatic } from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
 import type { DataSource } from 'typeorm';
-import { authenticate, findActiveUser, toSessionUser } from '../users/users.service';
+import { authenticate, findActiveSessionUser, toSessionUser } from '../users/users.service';
 
 /**
  * A passport instance for one app: e-mail + password sign-in, the user id in the session, and the user
@@ -18,8 +18,8 @@ export function createPassport(dataSource: DataSource): PassportStatic {
   );
   instance.serializeUser((user, done) => done(null, user.id));
   instance.deserializeUser((id: number, done) => {
-    findActiveUser(dataSource, id)
-      .then((user) => done(null, user ? toSessionUser(user) : false))
+    findActiveSessionUser(dataSource, id)
+      .then((user) => done(null, user ?? false))
       .catch((error: unknown) => done(error));
   });
   return instance;

@@ -4,6 +4,10 @@ import { SessionRecord } from './session.entity';
 
 const defaultLifetimeMs = 7 * 24 * 60 * 60 * 1000;
 const pruneIntervalMs = 15 * 60 * 1000;
+// A rolling session's expiry moves on every request; writing it more often than this buys nothing
+// over a week-long lifetime and would make every read request a database write.
+const touchIntervalMs = 10 * 60 * 1000;
+const maxTrackedSessions = 10_000;
 
 type Callback<T = void> = (error?: unknown, value?: T) => void;
 
@@ -15,18 +19,20 @@ type Callback<T = void> = (error?: unknown, value?: T) => void;
 export class DatabaseSessionStore extends session.Store {
   private readonly repository: Repository<SessionRecord>;
   private readonly pruneTimer: NodeJS.Timeout;
+  private readonly lastTouched = new Map<string, number>();
 
-  constructor(dataSource: DataSource) {
+  constructor(private readonly dataSource: DataSource) {
     super();
     this.repository = dataSource.getRepository(SessionRecord);
     this.pruneTimer = setInterval(() => void this.prune(), pruneIntervalMs);
     this.pruneTimer.unref();
   }
 
+  // Read on every signed-in request: plain SQL, because the ORM's entity building costs more than the query.
   override get = (sid: string, callback: Callback<session.SessionData | null>) => {
-    this.repository
-      .findOneBy({ sid })
-      .then((record) => {
+    this.dataSource
+      .query(`SELECT "data", "expires_at" AS "expiresAt" FROM "sessions" WHERE "sid" = ?`, [sid])
+      .then(([record]: { data: string; expiresAt: number }[]) => {
         if (!record || record.expiresAt <= Date.now()) return callback(undefined, null);
         callback(undefined, JSON.parse(record.data) as session.SessionData);
       })
@@ -41,6 +47,13 @@ export class DatabaseSessionStore extends session.Store {
   };
 
   override touch = (sid: string, data: session.SessionData, callback?: Callback) => {
+    const now = Date.now();
+    if (now - (this.lastTouched.get(sid) ?? 0) < touchIntervalMs) {
+      callback?.();
+      return;
+    }
+    if (this.lastTouched.size >= maxTrackedSessions) this.lastTouched.clear();
+    this.lastTouched.set(sid, now);
     this.repository
       .update({ sid }, { expiresAt: expiryOf(data) })
       .then(() => callback?.())
@@ -48,6 +61,7 @@ export class DatabaseSessionStore extends session.Store {
   };
 
   override destroy = (sid: string, callback?: Callback) => {
+    this.lastTouched.delete(sid);
     this.repository
       .delete({ sid })
       .then(() => callback?.())
@@ -57,6 +71,7 @@ export class DatabaseSessionStore extends session.Store {
   /** Ends every session of a user (deactivation, password change). */
   async destroyAllForUser(userId: number): Promise<void> {
     await this.repository.delete({ userId });
+    this.lastTouched.clear();
   }
 
   /** Stops the prune timer (tests, shutdown). */

@@ -49,8 +49,19 @@ export async function recordSignIn(dataSource: DataSource, userId: number): Prom
   await dataSource.query(`UPDATE "users" SET "last_sign_in_at" = ? WHERE "id" = ?`, [new Date().toISOString(), userId]);
 }
 
-export async function findActiveUser(dataSource: DataSource, id: number): Promise<User | null> {
-  return dataSource.getRepository(User).findOneBy({ id, active: true });
+/**
+ * The signed-in user for a session, or null when the account is gone or deactivated. Runs on every
+ * signed-in request, so it is plain SQL rather than an entity load.
+ */
+export async function findActiveSessionUser(dataSource: DataSource, id: number): Promise<SessionUserDto | null> {
+  const [row] = (await dataSource.query(`SELECT "id", "email", "name", "role", "preferences" FROM "users" WHERE "id" = ? AND "active" = 1`, [id])) as {
+    id: number;
+    email: string;
+    name: string;
+    role: SessionUserDto['role'];
+    preferences: string;
+  }[];
+  return row ? { id: row.id, email: row.email, name: row.name, role: row.role, preferences: JSON.parse(row.preferences) as UserPreferences } : null;
 }
 
 export async function listUsers(dataSource: DataSource): Promise<UserDto[]> {

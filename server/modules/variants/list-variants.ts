@@ -9,6 +9,7 @@ import {
   type VariantStatus,
 } from '@shared/schemas/variant';
 import { isoFromSqlite } from '../../sqlite-datetime';
+import { writeRevision } from '../../write-transaction';
 
 /** The variant columns every variant read selects, under the names of {@link VariantRecord}. */
 export const variantColumns = `v.id, v.campaign_id, v.enzyme_id, v.parent_variant_id, v.label, v.hgvs, v.mutation_count,
@@ -78,14 +79,29 @@ const sortColumns: Record<VariantSortKey, { column: string; nullable: boolean }>
  * @returns `{ rows, total, page, pageSize }`
  */
 export async function listVariants(dataSource: DataSource, query: ListVariantsQuery): Promise<VariantListDto> {
+  return remembered(pageCaches, dataSource, JSON.stringify(query), () => readVariantPage(dataSource, query));
+}
+
+/**
+ * The same page serialised as JSON, as the list route sends it; remembered like the page itself, since
+ * turning 50–500 rows into text costs more than finding them in a warm cache.
+ *
+ * @param dataSource the application's data source
+ * @param query the parsed list query
+ * @returns the JSON text of `{ rows, total, page, pageSize }`
+ */
+export async function listVariantsJson(dataSource: DataSource, query: ListVariantsQuery): Promise<string> {
+  return remembered(jsonCaches, dataSource, JSON.stringify(query), async () => JSON.stringify(await listVariants(dataSource, query)));
+}
+
+async function readVariantPage(dataSource: DataSource, query: ListVariantsQuery): Promise<VariantListDto> {
   const { where, parameters } = filterClause(query);
   const { column, nullable } = sortColumns[query.sort];
   const direction = query.order === 'desc' ? 'DESC' : 'ASC';
   const offset = (query.page - 1) * query.pageSize;
   const whereSql = (conditions: readonly string[]) => (conditions.length === 0 ? '' : `WHERE ${conditions.join(' AND ')}`);
 
-  // COUNT(*) alone can be answered from an index; counting the sort column's values would read rows.
-  const [{ total }] = await dataSource.query(`SELECT COUNT(*) AS total FROM variants v ${whereSql(where)}`, parameters);
+  const total = await countVariants(dataSource, whereSql(where), parameters);
   const ids: number[] = [];
   if (offset < total) {
     const valuedWhere = nullable ? [...where, `${column} IS NOT NULL`] : where;
@@ -115,7 +131,53 @@ export async function listVariants(dataSource: DataSource, query: ListVariantsQu
     dataSource.manager,
     ids.map((id) => byId.get(id)).filter((record): record is VariantRecord => record !== undefined),
   );
-  return { rows, total: Number(total), page: query.page, pageSize: query.pageSize };
+  return { rows, total, page: query.page, pageSize: query.pageSize };
+}
+
+interface RevisionCache<T> {
+  entries: Map<string, { revision: number; value: T }>;
+}
+const cacheSize = 500;
+const countCaches = new WeakMap<DataSource, RevisionCache<number>>();
+const pageCaches = new WeakMap<DataSource, RevisionCache<VariantListDto>>();
+const jsonCaches = new WeakMap<DataSource, RevisionCache<string>>();
+
+/**
+ * A read result remembered until the next write on the data source (least recently used first out).
+ * Scrolling the registry asks for page after page of one filter, so its count is asked again and again;
+ * a shared view link or a back/forward step asks for the same page again. Every registry write goes
+ * through writeTransaction, which moves the revision on, so a remembered result is never stale.
+ */
+async function remembered<T>(
+  caches: WeakMap<DataSource, RevisionCache<T>>,
+  dataSource: DataSource,
+  key: string,
+  read: () => Promise<T>,
+): Promise<T> {
+  let cache = caches.get(dataSource);
+  if (!cache) caches.set(dataSource, (cache = { entries: new Map() }));
+  const revision = writeRevision(dataSource);
+  const cached = cache.entries.get(key);
+  cache.entries.delete(key);
+  if (cached && cached.revision === revision) {
+    cache.entries.set(key, cached);
+    return cached.value;
+  }
+  const value = await read();
+  // Only a result read at the current revision may be kept: a write may have landed while reading.
+  if (writeRevision(dataSource) === revision) {
+    cache.entries.set(key, { revision, value });
+    if (cache.entries.size > cacheSize) cache.entries.delete(cache.entries.keys().next().value as string);
+  }
+  return value;
+}
+
+async function countVariants(dataSource: DataSource, whereSql: string, parameters: readonly unknown[]): Promise<number> {
+  return remembered(countCaches, dataSource, `${whereSql}\u0000${JSON.stringify(parameters)}`, async () => {
+    // COUNT(*) alone can be answered from an index; counting the sort column's values would read rows.
+    const [{ total }] = await dataSource.query(`SELECT COUNT(*) AS total FROM variants v ${whereSql}`, [...parameters]);
+    return Number(total);
+  });
 }
 
 /** Builds list rows for variant records, reading their mutations and site roles in one query each. */

@@ -22,6 +22,10 @@ import { Mutation } from './mutation.entity';
 @Index('idx_variants_campaign_fold_change', ['campaignId', 'summaryFoldChange'])
 @Index('idx_variants_campaign_updated', ['campaignId', 'updatedAt'])
 @Index('idx_variants_ddg', ['summaryDdgKjPerMol'])
+// The registry's most common view: one campaign, one status, ranked by ΔΔG‡ or fold change with a
+// fold-change floor; these two answer it from the index alone.
+@Index('idx_variants_campaign_status_ddg', ['campaignId', 'status', 'summaryDdgKjPerMol', 'summaryFoldChange'])
+@Index('idx_variants_campaign_status_fold_change', ['campaignId', 'status', 'summaryFoldChange', 'summaryDdgKjPerMol'])
 @Index('idx_variants_updated', ['updatedAt'])
 @Index('idx_variants_parent_variant', ['parentVariantId'])
 export class Variant {

@@ -4,7 +4,7 @@ import { createVariantInput, listVariantsQuery, updateVariantInput, type ListVar
 import { requirePermission } from '../../http/auth';
 import { parseId } from '../../http/params';
 import { validateBody, validateQuery } from '../../http/validate';
-import { listVariants } from './list-variants';
+import { listVariantsJson } from './list-variants';
 import { createVariant, getVariant, updateVariant } from './variants.service';
 
 /** `/api/variants`: the registry list, one variant, registration and edits. */
@@ -12,7 +12,7 @@ export function variantsRouter(dataSource: DataSource): Router {
   const router = Router();
 
   router.get('/', requirePermission('read'), validateQuery(listVariantsQuery), async (_req, res) => {
-    res.json(await listVariants(dataSource, res.locals.query as ListVariantsQuery));
+    res.type('application/json').send(await listVariantsJson(dataSource, res.locals.query as ListVariantsQuery));
   });
 
   router.post('/', requirePermission('variants:write'), validateBody(createVariantInput), async (req, res) => {
