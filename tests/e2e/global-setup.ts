@@ -1,12 +1,24 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
+import { createServer, type AddressInfo } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import type { TestProject } from 'vitest/node';
 import { chromiumMissingHint, findChromium } from './chromium';
 
 const rootDir = resolve(import.meta.dirname, '../..');
-const port = Number(process.env.KCATALOG_E2E_PORT ?? 3917);
+
+/** A port nobody listens on, so several browser-test runs on one machine do not collide. */
+function freePort(): Promise<number> {
+  return new Promise((resolvePort, reject) => {
+    const probe = createServer();
+    probe.once('error', reject);
+    probe.listen(0, '127.0.0.1', () => {
+      const { port } = probe.address() as AddressInfo;
+      probe.close(() => resolvePort(port));
+    });
+  });
+}
 
 async function waitForHealth(url: string, server: ChildProcess, timeoutMs = 120_000): Promise<void> {
   const deadline = Date.now() + timeoutMs;
@@ -36,6 +48,7 @@ export default async function setup(project: TestProject) {
     return;
   }
   const dataDir = mkdtempSync(join(tmpdir(), 'kcatalog-e2e-'));
+  const port = process.env.KCATALOG_E2E_PORT ? Number(process.env.KCATALOG_E2E_PORT) : await freePort();
   const server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
     cwd: rootDir,
     env: { ...process.env, PORT: String(port), KCATALOG_DATA_DIR: dataDir, KCATALOG_SEED: 'demo', KCATALOG_HOST: '127.0.0.1' },
