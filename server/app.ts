@@ -7,15 +7,25 @@ import type { DataSource } from 'typeorm';
 import { requireCsrfToken } from './http/csrf';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { assaysRouter } from './modules/assays/assays.router';
+import { attachmentsRouter } from './modules/attachments/attachments.router';
 import { auditRouter } from './modules/audit/audit.router';
 import { authRouter } from './modules/auth/auth.router';
 import { createPassport } from './modules/auth/passport';
 import { campaignsRouter } from './modules/campaigns/campaigns.router';
 import { comparisonsRouter } from './modules/comparisons/comparisons.router';
+import { digestsRouter } from './modules/digests/digests.router';
+import { unsubscribeRouter } from './modules/digests/unsubscribe.router';
 import { enzymesRouter } from './modules/enzymes/enzymes.router';
+import { exportsRouter } from './modules/exports/exports.router';
 import { fitsRouter } from './modules/fits/fits.router';
 import { healthRouter } from './modules/health/health.router';
+import { importsRouter } from './modules/imports/imports.router';
+import { invitationsRouter } from './modules/invitations/invitations.router';
+import { resolveMailOptions, type MailOptions } from './modules/mail/mail-options';
+import { outboxRouter } from './modules/mail/outbox.router';
 import { measurementsRouter } from './modules/measurements/measurements.router';
+import { overviewRouter } from './modules/overview/overview.router';
+import { passwordResetsRouter } from './modules/password-resets/password-resets.router';
 import { phProfilesRouter } from './modules/ph-profiles/ph-profiles.router';
 import { DatabaseSessionStore } from './modules/sessions/database-session-store';
 import { usersRouter } from './modules/users/users.router';
@@ -27,6 +37,10 @@ export interface AppOptions {
   trustProxy?: string;
   /** Built client to serve (dist/client); omitted in API tests. */
   clientDir?: string;
+  /** The data folder; uploaded files are stored under it. Without it the attachment routes are not mounted. */
+  dataDir?: string;
+  /** Link base, sender, time zone, digest schedule and delivery of e-mail; see MailOptions for the defaults. */
+  mail?: Partial<MailOptions>;
 }
 
 const sessionLifetimeMs = 7 * 24 * 60 * 60 * 1000;
@@ -34,6 +48,7 @@ const sessionLifetimeMs = 7 * 24 * 60 * 60 * 1000;
 /** Builds the Express app on an open data source. It does not listen; index.ts and the tests do. */
 export function createApp(dataSource: DataSource, options: AppOptions): Express {
   const app = express();
+  const mail = resolveMailOptions(options.mail);
   app.disable('x-powered-by');
   if (options.trustProxy) app.set('trust proxy', parseTrustProxy(options.trustProxy));
 
@@ -85,11 +100,14 @@ export function createApp(dataSource: DataSource, options: AppOptions): Express 
   );
   api.use(passport.session());
   api.use('/health', healthRouter());
+  // Before the CSRF check: one-click unsubscribe (RFC 8058) arrives without a session; the link's token is the credential.
+  api.use('/digests/unsubscribe', unsubscribeRouter(dataSource));
   api.use(requireCsrfToken);
   api.use('/auth', authRouter(dataSource, passport, sessionStore));
   api.use('/users', usersRouter(dataSource, sessionStore));
   // Before the /variants and /campaigns routers: it serves /variants/:id/comparison and /campaigns/:id/{cycles,landscape}.
   api.use(comparisonsRouter(dataSource));
+  if (options.dataDir) api.use(attachmentsRouter(dataSource, options.dataDir));
   api.use('/assays', assaysRouter(dataSource));
   api.use('/measurements', measurementsRouter(dataSource));
   api.use('/ph-profiles', phProfilesRouter(dataSource));
@@ -98,6 +116,13 @@ export function createApp(dataSource: DataSource, options: AppOptions): Express 
   api.use('/campaigns', campaignsRouter(dataSource));
   api.use('/variants', variantsRouter(dataSource));
   api.use('/audit', auditRouter(dataSource));
+  if (options.dataDir) api.use('/imports', importsRouter(dataSource, options.dataDir));
+  api.use('/exports', exportsRouter(dataSource));
+  api.use('/overview', overviewRouter(dataSource));
+  api.use('/invitations', invitationsRouter(dataSource, mail));
+  api.use('/password-resets', passwordResetsRouter(dataSource, mail));
+  api.use('/outbox', outboxRouter(dataSource, mail.delivery));
+  api.use('/digests', digestsRouter(dataSource, mail));
   api.use(apiNotFound);
   app.use('/api', api);
 

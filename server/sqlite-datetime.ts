@@ -10,3 +10,15 @@
 export function isoFromSqlite(value: string): string {
   return new Date(`${value.replace(' ', 'T')}Z`).toISOString();
 }
+
+/**
+ * Writes a date the way TypeORM stores `datetime` columns (UTC, `YYYY-MM-DD HH:MM:SS.SSS`), for raw SQL that
+ * compares with such columns: the text order is then the time order.
+ *
+ * @param date the instant
+ * @returns e.g. `2026-06-01 09:30:00.000`
+ * @example sqliteFromDate(new Date('2026-06-01T09:30:00Z')) // '2026-06-01 09:30:00.000'
+ */
+export function sqliteFromDate(date: Date): string {
+  return date.toISOString().replace('T', ' ').replace('Z', '');
+}

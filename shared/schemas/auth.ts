@@ -17,6 +17,10 @@ const newPassword = z
   .min(minimumPasswordLength, `must be at least ${minimumPasswordLength} characters`)
   .max(256, 'must be at most 256 characters');
 
+/** The e-mail and new-password rules, for the other account forms (invitations, password reset). */
+export const emailInput = email;
+export const newPasswordInput = newPassword;
+
 export const signInInput = z.object({
   email,
   password: z.string({ error: 'is required' }).min(1, 'is required').max(256, 'must be at most 256 characters'),

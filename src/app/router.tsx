@@ -1,25 +1,120 @@
 import { lazy, Suspense, type ReactNode } from 'react';
-import { createBrowserRouter, Navigate, RouterProvider } from 'react-router-dom';
+import { createBrowserRouter, RouterProvider } from 'react-router-dom';
 import { LoadingState } from '@/components/ui/states';
 import { paths } from '@/config/paths';
 import { RequirePermission, SignedInLayout } from './guards';
 
 const SignInRoute = lazy(() => import('./routes/sign-in'));
+const OverviewRoute = lazy(() => import('./routes/overview'));
+const RegistryRoute = lazy(() => import('./routes/registry'));
+const ReviewRoute = lazy(() => import('./routes/review'));
+const VariantRoute = lazy(() => import('./routes/variant'));
+const RegisterVariantRoute = lazy(() => import('./routes/register-variant'));
+const EnzymesRoute = lazy(() => import('./routes/enzymes'));
+const NewEnzymeRoute = lazy(() => import('./routes/new-enzyme'));
+const EnzymeRoute = lazy(() => import('./routes/enzyme'));
+const CampaignRoute = lazy(() => import('./routes/campaign'));
+const NewCampaignRoute = lazy(() => import('./routes/new-campaign'));
+const AssayEntryRoute = lazy(() => import('./routes/assay-entry'));
+const PhProfileEntryRoute = lazy(() => import('./routes/ph-profile-entry'));
+const LandscapeRoute = lazy(() => import('./routes/landscape'));
+const ImportsRoute = lazy(() => import('./routes/imports'));
 const AboutRoute = lazy(() => import('./routes/about'));
 const ChangePasswordRoute = lazy(() => import('./routes/change-password'));
 const AdminUsersRoute = lazy(() => import('./routes/admin-users'));
 const NotFoundRoute = lazy(() => import('./routes/not-found'));
+const DigestsRoute = lazy(() => import('./routes/digests'));
+const OutboxRoute = lazy(() => import('./routes/outbox'));
+const AcceptInvitationRoute = lazy(() => import('./routes/accept-invitation'));
+const ForgotPasswordRoute = lazy(() => import('./routes/forgot-password'));
+const ResetPasswordRoute = lazy(() => import('./routes/reset-password'));
+const UnsubscribeRoute = lazy(() => import('./routes/unsubscribe'));
 
 const page = (element: ReactNode) => <Suspense fallback={<LoadingState />}>{element}</Suspense>;
 
 const router = createBrowserRouter([
   { path: paths.signIn.path, element: page(<SignInRoute />) },
+  { path: paths.acceptInvitation.path, element: page(<AcceptInvitationRoute />) },
+  { path: paths.forgotPassword.path, element: page(<ForgotPasswordRoute />) },
+  { path: paths.resetPassword.path, element: page(<ResetPasswordRoute />) },
+  { path: paths.unsubscribe.path, element: page(<UnsubscribeRoute />) },
   {
     element: <SignedInLayout />,
     children: [
-      { path: paths.home.path, element: <Navigate to={paths.about.href()} replace /> },
+      { path: paths.home.path, element: page(<OverviewRoute />) },
+      { path: paths.registry.path, element: page(<RegistryRoute />) },
+      {
+        path: paths.review.path,
+        element: page(
+          <RequirePermission action="measurements:review">
+            <ReviewRoute />
+          </RequirePermission>,
+        ),
+      },
+      { path: paths.variant.path, element: page(<VariantRoute />) },
+      {
+        path: paths.registerVariant.path,
+        element: page(
+          <RequirePermission action="variants:write">
+            <RegisterVariantRoute />
+          </RequirePermission>,
+        ),
+      },
+      { path: paths.enzymes.path, element: page(<EnzymesRoute />) },
+      {
+        path: paths.newEnzyme.path,
+        element: page(
+          <RequirePermission action="variants:write">
+            <NewEnzymeRoute />
+          </RequirePermission>,
+        ),
+      },
+      { path: paths.enzyme.path, element: page(<EnzymeRoute />) },
+      { path: paths.campaign.path, element: page(<CampaignRoute />) },
+      {
+        path: paths.newCampaign.path,
+        element: page(
+          <RequirePermission action="campaigns:manage">
+            <NewCampaignRoute />
+          </RequirePermission>,
+        ),
+      },
+      { path: paths.landscape.path, element: page(<LandscapeRoute />) },
+      ...[paths.imports.path, paths.importJob.path].map((path) => ({
+        path,
+        element: page(
+          <RequirePermission action="imports:write">
+            <ImportsRoute />
+          </RequirePermission>,
+        ),
+      })),
+      {
+        path: paths.assayEntry.path,
+        element: page(
+          <RequirePermission action="measurements:write">
+            <AssayEntryRoute />
+          </RequirePermission>,
+        ),
+      },
+      {
+        path: paths.phProfileEntry.path,
+        element: page(
+          <RequirePermission action="measurements:write">
+            <PhProfileEntryRoute />
+          </RequirePermission>,
+        ),
+      },
       { path: paths.about.path, element: page(<AboutRoute />) },
       { path: paths.changePassword.path, element: page(<ChangePasswordRoute />) },
+      { path: paths.digests.path, element: page(<DigestsRoute />) },
+      {
+        path: paths.outbox.path,
+        element: page(
+          <RequirePermission action="users:manage">
+            <OutboxRoute />
+          </RequirePermission>,
+        ),
+      },
       {
         path: paths.adminUsers.path,
         element: page(

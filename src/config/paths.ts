@@ -18,6 +18,12 @@ export const paths = {
   phProfileEntry: { path: '/ph-profiles/new', href: (variantId?: number) => (variantId ? `/ph-profiles/new?variantId=${variantId}` : '/ph-profiles/new') },
   landscape: { path: '/landscape', href: (search = '') => `/landscape${search ? `?${search.replace(/^\?/, '')}` : ''}` },
   imports: { path: '/imports', href: () => '/imports' },
+  importJob: { path: '/imports/:id', href: (id: number) => `/imports/${id}` },
   digests: { path: '/digests', href: () => '/digests' },
   outbox: { path: '/admin/outbox', href: () => '/admin/outbox' },
+  // Public pages reached from links in messages (the server writes the same paths into the mail).
+  acceptInvitation: { path: '/invitation', href: (token: string) => `/invitation?token=${encodeURIComponent(token)}` },
+  forgotPassword: { path: '/forgot-password', href: () => '/forgot-password' },
+  resetPassword: { path: '/reset-password', href: (token: string) => `/reset-password?token=${encodeURIComponent(token)}` },
+  unsubscribe: { path: '/unsubscribe', href: (token: string) => `/unsubscribe?token=${encodeURIComponent(token)}` },
 } as const;

@@ -52,13 +52,15 @@ async function toApiError(response: Response): Promise<ApiError> {
 
 async function send(method: Method, path: string, body: unknown, token: string | null): Promise<Response> {
   const headers: Record<string, string> = { Accept: 'application/json' };
-  if (body !== undefined) headers['Content-Type'] = 'application/json';
+  // A FormData body (file uploads) sets its own multipart Content-Type with the boundary.
+  const isForm = body instanceof FormData;
+  if (body !== undefined && !isForm) headers['Content-Type'] = 'application/json';
   if (method !== 'GET' && token) headers['X-CSRF-Token'] = token;
   return fetch(`/api${path}`, {
     method,
     headers,
     credentials: 'same-origin',
-    body: body === undefined ? undefined : JSON.stringify(body),
+    body: body === undefined ? undefined : isForm ? body : JSON.stringify(body),
   });
 }
 
@@ -82,6 +84,8 @@ export async function apiRequest<T>(method: Method, path: string, body?: unknown
 export const api = {
   get: <T>(path: string) => apiRequest<T>('GET', path),
   post: <T>(path: string, body?: unknown) => apiRequest<T>('POST', path, body ?? {}),
+  /** Posts files and fields as multipart/form-data. */
+  postForm: <T>(path: string, form: FormData) => apiRequest<T>('POST', path, form),
   patch: <T>(path: string, body: unknown) => apiRequest<T>('PATCH', path, body),
   put: <T>(path: string, body: unknown) => apiRequest<T>('PUT', path, body),
   delete: <T>(path: string) => apiRequest<T>('DELETE', path),

@@ -4,11 +4,11 @@ import { baseUrl, hasBrowser, openBrowser, screenshot, signInAs } from './sessio
 
 // The navigation each role should see; the permission table in shared/auth decides it.
 const expectedNavigation: Record<string, string[]> = {
-  admin: ['Admin', 'About'],
-  lead: ['About'],
-  kineticist: ['About'],
-  biologist: ['About'],
-  viewer: ['About'],
+  admin: ['Overview', 'Registry', 'Landscape', 'Assay entry', 'Enzymes', 'Imports', 'Review', 'Digests', 'Outbox', 'Admin', 'About'],
+  lead: ['Overview', 'Registry', 'Landscape', 'Assay entry', 'Enzymes', 'Imports', 'Review', 'Digests', 'About'],
+  kineticist: ['Overview', 'Registry', 'Landscape', 'Assay entry', 'Enzymes', 'Imports', 'Digests', 'About'],
+  biologist: ['Overview', 'Registry', 'Landscape', 'Enzymes', 'Imports', 'Digests', 'About'],
+  viewer: ['Overview', 'Registry', 'Landscape', 'Enzymes', 'Digests', 'About'],
 };
 
 describe.skipIf(!hasBrowser)('signing in and out in the browser', () => {

@@ -207,3 +207,23 @@ describe('GET /api/campaigns', () => {
     expect(list.total).toBe(list.rows.length);
   });
 });
+
+describe('GET /api/campaigns/lead-candidates', () => {
+  it('lists the active leads and admins by name, for those who set a campaign lead', async () => {
+    const formerAdmin = (
+      await as('admin').post('/api/users', { email: `former-admin-${Date.now()}@kcatalog.example`, name: 'Aaron Former', role: 'admin', password: 'long-enough-password' }).expect(201)
+    ).body.user;
+    await as('admin').patch(`/api/users/${formerAdmin.id}`, { version: formerAdmin.version, active: false }).expect(200);
+
+    const { rows } = (await as('lead').get('/api/campaigns/lead-candidates').expect(200)).body;
+    expect(rows).toEqual([
+      { id: await userId('admin@kcatalog.example'), name: 'Ines Okafor-Lind' },
+      { id: await userId('lead@kcatalog.example'), name: 'Tomas Varga-Reyes' },
+    ]);
+    await as('admin').get('/api/campaigns/lead-candidates').expect(200);
+  });
+
+  it.each(['biologist', 'kineticist', 'viewer'] as Role[])('returns 403 for a %s', async (role) => {
+    await as(role).get('/api/campaigns/lead-candidates').expect(403);
+  });
+});

@@ -22,7 +22,7 @@ export interface TestApp {
 export async function createTestApp(dataDir = mkdtempSync(join(tmpdir(), 'kcatalog-test-'))): Promise<TestApp> {
   const dataSource = await openDatabase({ database: join(dataDir, 'kcatalog.sqlite') });
   if ((await dataSource.query('SELECT COUNT(*) AS n FROM users'))[0].n === 0) await seedDemoAccounts(dataSource);
-  const app = createApp(dataSource, { sessionSecret: testSecret });
+  const app = createApp(dataSource, { sessionSecret: testSecret, dataDir });
   return {
     app,
     dataSource,

@@ -271,7 +271,19 @@ export async function listAssays(
   };
 }
 
-function runFit(
+/**
+ * Fits an assay's points as entered with the chosen model, turning what the engine refuses, and a fit with
+ * a non-positive parameter, into a 400 on `points`.
+ *
+ * @param points the points in `sUnit` and `vUnit`, with exclusion marks
+ * @param model the kinetic model
+ * @param sUnit unit of S
+ * @param vUnit unit of v
+ * @param enzymeConcentration [E]t with its unit
+ * @throws {HttpError} 400 when the points cannot be fitted
+ * @returns the fit in SI units
+ */
+export function runFit(
   points: readonly { s: number; v: number; excluded: boolean }[],
   model: KineticModelName,
   sUnit: ConcentrationUnitInput,
@@ -299,6 +311,26 @@ async function saveFittedMeasurement(
   assay: Assay,
   fit: AssayFit,
 ): Promise<Measurement> {
+  return manager.getRepository(Measurement).save(manager.getRepository(Measurement).create(fittedMeasurementColumns(context, assay, fit, actorId)));
+}
+
+/**
+ * The column values of a measurement fitted from an assay's rate points, as POST /api/assays stores it:
+ * the fit's parameters in SI with their errors and 95 % intervals, the substrate range of the fitted
+ * points, plausibility flags and STRENDA completeness; a draft. Imports build their rows with it too.
+ *
+ * @param context the variant with its campaign and enzyme
+ * @param assay the saved assay row (id, variant, condition columns, replicate count)
+ * @param fit the fit from {@link runFit}
+ * @param actorId who fits it
+ * @returns the columns of a new Measurement
+ */
+export function fittedMeasurementColumns(
+  context: VariantContext,
+  assay: Pick<Assay, 'id' | 'variantId' | 'temperatureK' | 'ph' | 'bufferName' | 'bufferMolar' | 'metalSalt' | 'metalMolar' | 'enzymeMolar' | 'replicateCount'>,
+  fit: AssayFit,
+  actorId: number,
+): Partial<Measurement> {
   const { parameters } = fit;
   // A loop, not Math.min(...values): an assay may carry more points than a call takes arguments.
   let substrateMin = Number.POSITIVE_INFINITY;
@@ -325,48 +357,46 @@ async function saveFittedMeasurement(
   if (parameters.kcatOverKm) ci95.kcatOverKm = parameters.kcatOverKm.ci95;
   if (parameters.ki) ci95.ki = parameters.ki.ci95;
   if (parameters.hill) ci95.hill = parameters.hill.ci95;
-  return manager.getRepository(Measurement).save(
-    manager.getRepository(Measurement).create({
-      assayId: assay.id,
-      variantId: assay.variantId,
-      source: 'fitted',
-      model: fit.model,
-      vmax: parameters.vmax.value,
-      vmaxSe: parameters.vmax.se,
-      kcat: parameters.kcat.value,
-      kcatSe: parameters.kcat.se,
-      km: parameters.km.value,
-      kmSe: parameters.km.se,
-      kcatOverKm: parameters.kcatOverKm?.value ?? null,
-      kcatOverKmSe: parameters.kcatOverKm?.se ?? null,
-      ki: parameters.ki?.value ?? null,
-      kiSe: parameters.ki?.se ?? null,
-      hillN: parameters.hill?.value ?? null,
-      hillNSe: parameters.hill?.se ?? null,
-      ci95,
-      residualSd: fit.residualSdMolarPerSecond,
-      degreesOfFreedom: fit.degreesOfFreedom,
-      pointCount: fit.pointCount,
-      substrateMinMolar: substrateMin,
-      substrateMaxMolar: substrateMax,
-      fittingMethod,
-      warnings: fit.warnings,
-      flags: storedFlags({
-        kcat: parameters.kcat,
-        km: parameters.km,
-        kcatOverKm: parameters.kcatOverKm,
-        substrateMolar: fit.substrateMolar,
-      }),
-      completenessScore: completeness.score,
-      completenessMissing: completeness.missing,
-      reviewState: 'draft',
-      reviewReason: null,
-      reviewedById: null,
-      reviewedAt: null,
-      supersededById: null,
-      createdById: actorId,
+  return {
+    assayId: assay.id,
+    variantId: assay.variantId,
+    source: 'fitted',
+    model: fit.model,
+    vmax: parameters.vmax.value,
+    vmaxSe: parameters.vmax.se,
+    kcat: parameters.kcat.value,
+    kcatSe: parameters.kcat.se,
+    km: parameters.km.value,
+    kmSe: parameters.km.se,
+    kcatOverKm: parameters.kcatOverKm?.value ?? null,
+    kcatOverKmSe: parameters.kcatOverKm?.se ?? null,
+    ki: parameters.ki?.value ?? null,
+    kiSe: parameters.ki?.se ?? null,
+    hillN: parameters.hill?.value ?? null,
+    hillNSe: parameters.hill?.se ?? null,
+    ci95,
+    residualSd: fit.residualSdMolarPerSecond,
+    degreesOfFreedom: fit.degreesOfFreedom,
+    pointCount: fit.pointCount,
+    substrateMinMolar: substrateMin,
+    substrateMaxMolar: substrateMax,
+    fittingMethod,
+    warnings: fit.warnings,
+    flags: storedFlags({
+      kcat: parameters.kcat,
+      km: parameters.km,
+      kcatOverKm: parameters.kcatOverKm,
+      substrateMolar: fit.substrateMolar,
     }),
-  );
+    completenessScore: completeness.score,
+    completenessMissing: completeness.missing,
+    reviewState: 'draft',
+    reviewReason: null,
+    reviewedById: null,
+    reviewedAt: null,
+    supersededById: null,
+    createdById: actorId,
+  };
 }
 
 async function pointCounts(manager: EntityManager, assayIds: readonly number[]): Promise<Map<number, number>> {

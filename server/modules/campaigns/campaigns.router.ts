@@ -4,7 +4,7 @@ import { createCampaignInput, updateCampaignInput } from '@shared/schemas/campai
 import { requirePermission } from '../../http/auth';
 import { parseId } from '../../http/params';
 import { validateBody } from '../../http/validate';
-import { createCampaign, getCampaign, listCampaigns, updateCampaign } from './campaigns.service';
+import { createCampaign, getCampaign, listCampaigns, listLeadCandidates, updateCampaign } from './campaigns.service';
 
 /** `/api/campaigns`: campaigns with their variant counts; settings are for leads and admins. */
 export function campaignsRouter(dataSource: DataSource): Router {
@@ -16,6 +16,11 @@ export function campaignsRouter(dataSource: DataSource): Router {
 
   router.post('/', requirePermission('campaigns:manage'), validateBody(createCampaignInput), async (req, res) => {
     res.status(201).json(await createCampaign(dataSource, req.user!.id, req.body));
+  });
+
+  // Before '/:id' so that "lead-candidates" is not read as an id. Only those who set a lead need the list.
+  router.get('/lead-candidates', requirePermission('campaigns:manage'), async (_req, res) => {
+    res.json(await listLeadCandidates(dataSource));
   });
 
   router.get('/:id', requirePermission('read'), async (req, res) => {

@@ -1,6 +1,6 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import { mutationKey } from '@shared/mutations/format-mutations';
-import type { CampaignDto, CampaignStatus, CreateCampaignInput, UpdateCampaignInput } from '@shared/schemas/campaign';
+import type { CampaignDto, CampaignStatus, CreateCampaignInput, PersonRefDto, UpdateCampaignInput } from '@shared/schemas/campaign';
 import { variantStatuses, type VariantStatus } from '@shared/schemas/variant';
 import { badRequest, conflict, notFound, staleVersion } from '../../http/errors';
 import { isoFromSqlite } from '../../sqlite-datetime';
@@ -53,6 +53,18 @@ export async function listCampaigns(dataSource: DataSource): Promise<{ rows: Cam
   const counts = await variantCounts(dataSource.manager);
   const rows = records.map((record) => toCampaignDto(record, counts.get(record.id)));
   return { rows, total: rows.length };
+}
+
+/**
+ * The people who may lead a campaign (active users with the lead or admin role), by name, so the
+ * campaign form can offer them without the user administration list.
+ */
+export async function listLeadCandidates(dataSource: DataSource): Promise<{ rows: PersonRefDto[] }> {
+  const rows: PersonRefDto[] = await dataSource.query(
+    `SELECT id, name FROM users WHERE active = 1 AND role IN (${leadRoles.map(() => '?').join(', ')}) ORDER BY name COLLATE NOCASE, id`,
+    [...leadRoles],
+  );
+  return { rows: rows.map((row) => ({ id: row.id, name: row.name })) };
 }
 
 /** One campaign with its variant counts; 404 when there is none. */

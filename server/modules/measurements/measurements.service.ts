@@ -12,7 +12,7 @@ import {
 import { HttpError, forbidden, notFound, staleVersion } from '../../http/errors';
 import { writeTransaction } from '../../write-transaction';
 import { Assay } from '../assays/assay.entity';
-import { assayConditionColumns, loadVariantContext } from '../assays/assay-conditions';
+import { assayConditionColumns, loadVariantContext, type VariantContext } from '../assays/assay-conditions';
 import { recordAudit } from '../audit/record-audit';
 import { recomputeVariantSummaries } from '../comparisons/variant-summary';
 import { Variant } from '../variants/variant.entity';
@@ -62,73 +62,9 @@ export async function createEnteredMeasurement(
       }),
     );
 
-    const kcat = { value: toPerSecond(input.kcat.value, input.kcat.unit), se: toPerSecond(input.kcat.se, input.kcat.unit) };
-    const km = { value: toMolar(input.km.value, input.km.unit), se: toMolar(input.km.se, input.km.unit) };
-    const warnings: string[] = [];
-    let kcatOverKm: { value: number; se: number } | null = null;
-    if (input.kcatOverKm) {
-      kcatOverKm = {
-        value: toPerMolarPerSecond(input.kcatOverKm.value, input.kcatOverKm.unit),
-        se: toPerMolarPerSecond(input.kcatOverKm.se, input.kcatOverKm.unit),
-      };
-    } else if (input.model !== 'hill') {
-      const value = kcat.value / km.value;
-      kcatOverKm = { value, se: value * Math.hypot(kcat.se / kcat.value, km.se / km.value) };
-      warnings.push(
-        'kcat/Km was derived from kcat and Km with their errors taken as independent, which overstates its error when they came from one fit',
-      );
-    }
-    const range = input.substrateRange
-      ? { min: toMolar(input.substrateRange.min, input.substrateRange.unit), max: toMolar(input.substrateRange.max, input.substrateRange.unit) }
-      : null;
-    const fittingMethod = input.fittingMethod ?? null;
-    const completeness = completenessFor(context, assay, {
-      kcat,
-      km,
-      substrateMinMolar: range?.min ?? null,
-      substrateMaxMolar: range?.max ?? null,
-      replicateCount: input.replicateCount ?? null,
-      model: input.model,
-      fittingMethod,
-    });
-
-    const measurement = await manager.getRepository(Measurement).save(
-      manager.getRepository(Measurement).create({
-        assayId: assay.id,
-        variantId: context.variant.id,
-        source: 'entered',
-        model: input.model,
-        vmax: null,
-        vmaxSe: null,
-        kcat: kcat.value,
-        kcatSe: kcat.se,
-        km: km.value,
-        kmSe: km.se,
-        kcatOverKm: kcatOverKm?.value ?? null,
-        kcatOverKmSe: kcatOverKm?.se ?? null,
-        ki: input.ki ? toMolar(input.ki.value, input.ki.unit) : null,
-        kiSe: input.ki ? toMolar(input.ki.se, input.ki.unit) : null,
-        hillN: input.hill?.value ?? null,
-        hillNSe: input.hill?.se ?? null,
-        ci95: {},
-        residualSd: null,
-        degreesOfFreedom: null,
-        pointCount: null,
-        substrateMinMolar: range?.min ?? null,
-        substrateMaxMolar: range?.max ?? null,
-        fittingMethod,
-        warnings,
-        flags: storedFlags({ kcat, km, kcatOverKm, substrateMolar: range ? [range.min, range.max] : null }),
-        completenessScore: completeness.score,
-        completenessMissing: completeness.missing,
-        reviewState: 'draft',
-        reviewReason: null,
-        reviewedById: null,
-        reviewedAt: null,
-        supersededById: null,
-        createdById: actorId,
-      }),
-    );
+    const measurement = await manager
+      .getRepository(Measurement)
+      .save(manager.getRepository(Measurement).create(enteredMeasurementColumns(context, assay, input, actorId)));
     const campaignId = context.variant.campaignId;
     await recordAudit(manager, {
       actorId,
@@ -149,6 +85,91 @@ export async function createEnteredMeasurement(
     await recomputeVariantSummaries(manager, campaignId, [context.variant.id]);
     return toMeasurementDto(measurement, assay, context.variant);
   });
+}
+
+/**
+ * The column values of a measurement entered as reported values, as POST /api/measurements stores it:
+ * kcat and Km (and kcat/Km, Ki, Hill n) converted to SI, kcat/Km derived from kcat and Km when not given
+ * (with a warning, as their errors are taken as independent; not for the Hill model), plausibility flags
+ * and STRENDA completeness; a draft. Imports build their rows with it too.
+ *
+ * @param context the variant with its campaign and enzyme
+ * @param assay the saved assay row the measurement belongs to (id and condition columns)
+ * @param input the validated body
+ * @param actorId who enters it
+ * @returns the columns of a new Measurement
+ */
+export function enteredMeasurementColumns(
+  context: VariantContext,
+  assay: Pick<Assay, 'id' | 'temperatureK' | 'ph' | 'bufferName' | 'bufferMolar' | 'metalSalt' | 'metalMolar' | 'enzymeMolar'>,
+  input: CreateMeasurementInput,
+  actorId: number,
+): Partial<Measurement> {
+  const kcat = { value: toPerSecond(input.kcat.value, input.kcat.unit), se: toPerSecond(input.kcat.se, input.kcat.unit) };
+  const km = { value: toMolar(input.km.value, input.km.unit), se: toMolar(input.km.se, input.km.unit) };
+  const warnings: string[] = [];
+  let kcatOverKm: { value: number; se: number } | null = null;
+  if (input.kcatOverKm) {
+    kcatOverKm = {
+      value: toPerMolarPerSecond(input.kcatOverKm.value, input.kcatOverKm.unit),
+      se: toPerMolarPerSecond(input.kcatOverKm.se, input.kcatOverKm.unit),
+    };
+  } else if (input.model !== 'hill') {
+    const value = kcat.value / km.value;
+    kcatOverKm = { value, se: value * Math.hypot(kcat.se / kcat.value, km.se / km.value) };
+    warnings.push(
+      'kcat/Km was derived from kcat and Km with their errors taken as independent, which overstates its error when they came from one fit',
+    );
+  }
+  const range = input.substrateRange
+    ? { min: toMolar(input.substrateRange.min, input.substrateRange.unit), max: toMolar(input.substrateRange.max, input.substrateRange.unit) }
+    : null;
+  const fittingMethod = input.fittingMethod ?? null;
+  const completeness = completenessFor(context, assay, {
+    kcat,
+    km,
+    substrateMinMolar: range?.min ?? null,
+    substrateMaxMolar: range?.max ?? null,
+    replicateCount: input.replicateCount ?? null,
+    model: input.model,
+    fittingMethod,
+  });
+
+  return {
+    assayId: assay.id,
+    variantId: context.variant.id,
+    source: 'entered',
+    model: input.model,
+    vmax: null,
+    vmaxSe: null,
+    kcat: kcat.value,
+    kcatSe: kcat.se,
+    km: km.value,
+    kmSe: km.se,
+    kcatOverKm: kcatOverKm?.value ?? null,
+    kcatOverKmSe: kcatOverKm?.se ?? null,
+    ki: input.ki ? toMolar(input.ki.value, input.ki.unit) : null,
+    kiSe: input.ki ? toMolar(input.ki.se, input.ki.unit) : null,
+    hillN: input.hill?.value ?? null,
+    hillNSe: input.hill?.se ?? null,
+    ci95: {},
+    residualSd: null,
+    degreesOfFreedom: null,
+    pointCount: null,
+    substrateMinMolar: range?.min ?? null,
+    substrateMaxMolar: range?.max ?? null,
+    fittingMethod,
+    warnings,
+    flags: storedFlags({ kcat, km, kcatOverKm, substrateMolar: range ? [range.min, range.max] : null }),
+    completenessScore: completeness.score,
+    completenessMissing: completeness.missing,
+    reviewState: 'draft',
+    reviewReason: null,
+    reviewedById: null,
+    reviewedAt: null,
+    supersededById: null,
+    createdById: actorId,
+  };
 }
 
 /**

@@ -32,45 +32,7 @@ export const phProfileAuditType = 'ph-profile';
 export async function createPhProfile(dataSource: DataSource, actorId: number, input: CreatePhProfileInput): Promise<PhProfileDto> {
   return writeTransaction(dataSource, async (manager) => {
     const context = await loadVariantContext(manager, input.variantId);
-    const used = input.points.filter((point) => !point.excluded).map((point) => ({ ph: point.ph, k: point.k }));
-    let fit: FitResult | PhBellFitResult;
-    try {
-      fit = fitPhProfile(used, { model: input.model });
-    } catch (error) {
-      if (error instanceof KineticsInputError) throw badRequest(`The points cannot be fitted: ${error.message}.`, { points: error.message });
-      throw error;
-    }
-    const kmax = fit.parameters.kmax;
-    if (!(kmax.value > 0)) {
-      const message = 'the fit gives a non-positive kmax, so the model does not describe these points';
-      throw badRequest(`The points cannot be fitted: ${message}.`, { points: message });
-    }
-    const factor = phRateToSi(1, input.rateKind, input.unit);
-    const acidic = input.model === 'bell' ? fit.parameters.pKa1 : input.model === 'acid' ? fit.parameters.pKa : null;
-    const basic = input.model === 'bell' ? fit.parameters.pKa2 : input.model === 'base' ? fit.parameters.pKa : null;
-    const optimum = 'phOptimum' in fit ? fit.phOptimum : null;
-    const profile = await manager.getRepository(PhProfile).save(
-      manager.getRepository(PhProfile).create({
-        variantId: context.variant.id,
-        substrate: input.substrate,
-        temperatureK: input.temperatureC + ZERO_CELSIUS_KELVIN,
-        rateKind: input.rateKind,
-        model: input.model,
-        points: input.points.map((point) => ({ ph: point.ph, k: phRateToSi(point.k, input.rateKind, input.unit), excluded: point.excluded })),
-        pka1: acidic?.value ?? null,
-        pka1Se: acidic?.se ?? null,
-        pka2: basic?.value ?? null,
-        pka2Se: basic?.se ?? null,
-        kMax: kmax.value * factor,
-        kMaxSe: kmax.se * factor,
-        phOptimum: optimum?.value ?? null,
-        phOptimumSe: optimum?.se ?? null,
-        residualSd: fit.residualSd * factor,
-        degreesOfFreedom: fit.df,
-        warnings: fit.warnings,
-        createdById: actorId,
-      }),
-    );
+    const profile = await manager.getRepository(PhProfile).save(manager.getRepository(PhProfile).create(phProfileColumns(input, actorId)));
     await recordAudit(manager, {
       actorId,
       entityType: phProfileAuditType,
@@ -91,6 +53,57 @@ export async function createPhProfile(dataSource: DataSource, actorId: number, i
     await recomputeVariantSummaries(manager, context.variant.campaignId, [context.variant.id]);
     return toPhProfileDto(profile, context.variant, await pkaReading(manager, context.campaign.enzymeId, profile));
   });
+}
+
+/**
+ * Fits a pH–rate profile as POST /api/ph-profiles does and returns the columns of the profile to store: the
+ * fit runs in the entered unit on the points that are not excluded; kmax and the residual SD are converted to
+ * the rate kind's SI unit (one exact factor) and the points are stored in SI with their exclusion marks; the
+ * acidic-limb pKa is pKa1 and the basic-limb pKa pKa2. Imports build their rows with it too.
+ *
+ * @param input the validated body (its variant must exist)
+ * @param actorId who enters it
+ * @throws {HttpError} 400 for points the engine refuses or a non-positive kmax
+ * @returns the columns of a new PhProfile
+ */
+export function phProfileColumns(input: CreatePhProfileInput, actorId: number): Partial<PhProfile> {
+  const used = input.points.filter((point) => !point.excluded).map((point) => ({ ph: point.ph, k: point.k }));
+  let fit: FitResult | PhBellFitResult;
+  try {
+    fit = fitPhProfile(used, { model: input.model });
+  } catch (error) {
+    if (error instanceof KineticsInputError) throw badRequest(`The points cannot be fitted: ${error.message}.`, { points: error.message });
+    throw error;
+  }
+  const kmax = fit.parameters.kmax;
+  if (!(kmax.value > 0)) {
+    const message = 'the fit gives a non-positive kmax, so the model does not describe these points';
+    throw badRequest(`The points cannot be fitted: ${message}.`, { points: message });
+  }
+  const factor = phRateToSi(1, input.rateKind, input.unit);
+  const acidic = input.model === 'bell' ? fit.parameters.pKa1 : input.model === 'acid' ? fit.parameters.pKa : null;
+  const basic = input.model === 'bell' ? fit.parameters.pKa2 : input.model === 'base' ? fit.parameters.pKa : null;
+  const optimum = 'phOptimum' in fit ? fit.phOptimum : null;
+  return {
+    variantId: input.variantId,
+    substrate: input.substrate,
+    temperatureK: input.temperatureC + ZERO_CELSIUS_KELVIN,
+    rateKind: input.rateKind,
+    model: input.model,
+    points: input.points.map((point) => ({ ph: point.ph, k: phRateToSi(point.k, input.rateKind, input.unit), excluded: point.excluded })),
+    pka1: acidic?.value ?? null,
+    pka1Se: acidic?.se ?? null,
+    pka2: basic?.value ?? null,
+    pka2Se: basic?.se ?? null,
+    kMax: kmax.value * factor,
+    kMaxSe: kmax.se * factor,
+    phOptimum: optimum?.value ?? null,
+    phOptimumSe: optimum?.se ?? null,
+    residualSd: fit.residualSd * factor,
+    degreesOfFreedom: fit.df,
+    warnings: fit.warnings,
+    createdById: actorId,
+  };
 }
 
 /**

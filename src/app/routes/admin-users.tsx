@@ -1,6 +1,8 @@
 import { PageHeader } from '@/components/ui/page-header';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { useMe } from '@/features/auth/api/get-me';
+import { InvitationsList } from '@/features/invitations/components/invitations-list';
+import { InviteForm } from '@/features/invitations/components/invite-form';
 import { useUsers } from '@/features/users/api/get-users';
 import { CreateUserForm } from '@/features/users/components/create-user-form';
 import { UsersTable } from '@/features/users/components/users-table';
@@ -19,7 +21,11 @@ export default function AdminUsersRoute() {
           {users.data && users.data.length === 0 && <EmptyState title="No users yet." />}
           {users.data && users.data.length > 0 && me.data && <UsersTable users={users.data} me={me.data} onReload={() => void users.refetch()} />}
         </section>
-        <CreateUserForm />
+        <div className="space-y-6">
+          <InviteForm />
+          <InvitationsList />
+          <CreateUserForm />
+        </div>
       </div>
     </div>
   );

@@ -1,6 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm } from 'react-hook-form';
-import { Navigate, useNavigate, useSearchParams } from 'react-router-dom';
+import { Link, Navigate, useNavigate, useSearchParams } from 'react-router-dom';
 import { roleLabels } from '@shared/auth/permissions';
 import { signInInput, type SignInInput } from '@shared/schemas/auth';
 import { BrandMark } from '@/components/ui/brand-mark';
@@ -71,6 +71,11 @@ export default function SignInRoute() {
               Sign in
             </Button>
           </form>
+          <p className="text-sm">
+            <Link to={paths.forgotPassword.href()} className="text-lagoon-700 underline-offset-2 hover:underline">
+              Forgot password?
+            </Link>
+          </p>
           {demo.data && demo.data.accounts.length > 0 && (
             <div className="rounded-lg border border-paper-200 bg-white p-4 text-sm">
               <p className="font-semibold text-ink-700">Demo accounts</p>

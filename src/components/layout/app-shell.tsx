@@ -13,6 +13,15 @@ interface NavItem {
 }
 
 const navigation: NavItem[] = [
+  { to: paths.home.href(), label: 'Overview', action: 'read' },
+  { to: paths.registry.href(), label: 'Registry', action: 'read' },
+  { to: paths.landscape.href(), label: 'Landscape', action: 'read' },
+  { to: paths.assayEntry.href(), label: 'Assay entry', action: 'measurements:write' },
+  { to: paths.enzymes.href(), label: 'Enzymes', action: 'read' },
+  { to: paths.imports.href(), label: 'Imports', action: 'imports:write' },
+  { to: paths.review.href(), label: 'Review', action: 'measurements:review' },
+  { to: paths.digests.href(), label: 'Digests', action: 'read' },
+  { to: paths.outbox.href(), label: 'Outbox', action: 'users:manage' },
   { to: paths.adminUsers.href(), label: 'Admin', action: 'users:manage' },
   { to: paths.about.href(), label: 'About', action: 'read' },
 ];
@@ -43,6 +52,8 @@ export function AppShell({ user }: { user: SessionUserDto }) {
                 <NavLink
                   key={item.to}
                   to={item.to}
+                  // Home is a prefix of every path; it is current only on itself.
+                  end={item.to === paths.home.href()}
                   className={({ isActive }) =>
                     `rounded-md px-3 py-1.5 text-sm font-medium ${isActive ? 'bg-lagoon-700 text-white' : 'text-lagoon-100 hover:bg-lagoon-800 hover:text-white'}`
                   }

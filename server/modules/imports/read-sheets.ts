@@ -1,0 +1,209 @@
+import { Readable } from 'node:stream';
+import ExcelJS from 'exceljs';
+import Papa from 'papaparse';
+import { maxImportRows } from '@shared/schemas/import';
+import { HttpError } from '../../http/errors';
+import type { CheckedUpload } from './check-upload';
+
+/** A cell the spreadsheet holds but that has no usable value (an error, a formula never calculated). */
+export class CellFault {
+  constructor(readonly message: string) {}
+}
+
+/** One cell as read: empty, text, a number, a date, a truth value, or a fault. */
+export type CellValue = null | string | number | boolean | Date | CellFault;
+
+/** One data row: its number as the spreadsheet shows it and its cells by 0-based column. */
+export interface SheetRow {
+  rowNumber: number;
+  cells: CellValue[];
+}
+
+/** A sheet's name, header row and number of data rows. */
+export interface SheetSurvey {
+  name: string;
+  headers: string[];
+  rowCount: number;
+}
+
+/** What the streaming reader needs for dates: number formats (styles), shared strings; nothing else. */
+const READER_OPTIONS = { worksheets: 'emit', sharedStrings: 'cache', styles: 'cache', hyperlinks: 'ignore', entries: 'ignore' } as const;
+
+interface ExcelRow {
+  number: number;
+  values: unknown[] | Record<string, unknown>;
+}
+
+function tooManyRows(sheet: string): HttpError {
+  const message = `sheet ${sheet} has more than ${maxImportRows.toLocaleString('en-US')} data rows; split it into several files`;
+  return new HttpError(400, 'validation_error', `The file cannot be imported: ${message}.`, { file: message });
+}
+
+/**
+ * Every sheet's name, header row (the first row with any content) and count of data rows below it,
+ * refusing a sheet with more than {@link maxImportRows} data rows. Workbooks are read with exceljs's
+ * streaming reader, so a large sheet is never held in memory as a whole.
+ *
+ * @param upload the checked upload
+ * @param csvSheetName the name a CSV file's single sheet is shown under
+ * @throws {HttpError} 400 for too many rows or an unreadable file
+ * @returns the sheets in workbook order
+ */
+export async function surveySheets(upload: CheckedUpload, csvSheetName: string): Promise<SheetSurvey[]> {
+  const surveys: SheetSurvey[] = [];
+  let current: SheetSurvey | null = null;
+  await readRows(upload, csvSheetName, {
+    onSheet: (name) => {
+      current = { name, headers: [], rowCount: 0 };
+      surveys.push(current);
+      return true;
+    },
+    onHeader: (headers) => {
+      current!.headers = headers;
+    },
+    onRow: () => {
+      current!.rowCount += 1;
+      if (current!.rowCount > maxImportRows) throw tooManyRows(current!.name);
+    },
+  });
+  return surveys;
+}
+
+/**
+ * The header row and data rows of one sheet. Only the columns in `columns` are kept in each row, so a
+ * wide sheet costs memory only for the columns mapped.
+ *
+ * @param upload the checked upload
+ * @param sheetName the sheet to read (a CSV file has one, whatever its name)
+ * @param columns 0-based columns to keep; all when omitted
+ * @throws {HttpError} 400 when the sheet is missing, has too many rows or cannot be read
+ * @returns the header texts and the data rows (rows without any content are skipped)
+ */
+export async function readSheet(
+  upload: CheckedUpload,
+  sheetName: string,
+  columns?: readonly number[],
+): Promise<{ headers: string[]; rows: SheetRow[] }> {
+  let found = false;
+  let headers: string[] = [];
+  const rows: SheetRow[] = [];
+  await readRows(upload, sheetName, {
+    onSheet: (name) => {
+      const wanted = upload.format === 'csv' || name === sheetName;
+      found ||= wanted;
+      return wanted;
+    },
+    onHeader: (values) => {
+      headers = values;
+    },
+    onRow: (row) => {
+      if (rows.length >= maxImportRows) throw tooManyRows(sheetName);
+      if (columns === undefined) {
+        rows.push(row);
+        return;
+      }
+      const kept: CellValue[] = [];
+      for (const column of columns) kept[column] = row.cells[column] ?? null;
+      rows.push({ rowNumber: row.rowNumber, cells: kept });
+    },
+  });
+  if (!found) throw new HttpError(400, 'validation_error', `The file has no sheet named ${sheetName}.`, { sheet: `no sheet is named ${sheetName}` });
+  return { headers, rows };
+}
+
+interface RowVisitor {
+  /** Return false to skip the sheet's rows. */
+  onSheet: (name: string) => boolean;
+  onHeader: (headers: string[]) => void;
+  onRow: (row: SheetRow) => void;
+}
+
+async function readRows(upload: CheckedUpload, csvSheetName: string, visitor: RowVisitor): Promise<void> {
+  if (upload.format === 'csv') {
+    readCsvRows(upload.text, csvSheetName, visitor);
+    return;
+  }
+  const reader = new ExcelJS.stream.xlsx.WorkbookReader(Readable.from(upload.buffer), READER_OPTIONS);
+  try {
+    for await (const worksheet of reader) {
+      const sheet = worksheet as unknown as AsyncIterable<ExcelRow> & { name: string };
+      const wanted = visitor.onSheet(sheet.name);
+      let headerSeen = false;
+      for await (const row of sheet) {
+        if (!wanted) continue;
+        const cells = excelCells(row.values);
+        if (!cells.some((cell) => cell !== null)) continue;
+        if (!headerSeen) {
+          visitor.onHeader(cells.map(headerText));
+          headerSeen = true;
+          continue;
+        }
+        visitor.onRow({ rowNumber: row.number, cells });
+      }
+    }
+  } catch (error) {
+    if (error instanceof HttpError) throw error;
+    const message = 'the workbook could not be read (it may be damaged)';
+    throw new HttpError(400, 'validation_error', `The file cannot be imported: ${message}.`, { file: message });
+  }
+}
+
+function readCsvRows(text: string, sheetName: string, visitor: RowVisitor): void {
+  const parsed = Papa.parse<string[]>(text, { skipEmptyLines: false });
+  const quoteError = parsed.errors.find((error) => error.type === 'Quotes');
+  if (quoteError) {
+    const message = `a quoted field is not closed (near row ${(quoteError.row ?? 0) + 1})`;
+    throw new HttpError(400, 'validation_error', `The file cannot be imported: ${message}.`, { file: message });
+  }
+  visitor.onSheet(sheetName);
+  let headerSeen = false;
+  parsed.data.forEach((record, index) => {
+    const cells: CellValue[] = record.map((cell) => (cell.trim() === '' ? null : cell));
+    if (!cells.some((cell) => cell !== null)) return;
+    if (!headerSeen) {
+      visitor.onHeader(cells.map(headerText));
+      headerSeen = true;
+      return;
+    }
+    // One CSV record is one spreadsheet row, even where a quoted field spans lines.
+    visitor.onRow({ rowNumber: index + 1, cells });
+  });
+}
+
+// exceljs gives row.values 1-based (index 0 unused) and sparse.
+function excelCells(values: ExcelRow['values']): CellValue[] {
+  const cells: CellValue[] = [];
+  if (!Array.isArray(values)) return cells;
+  for (let index = 1; index < values.length; index += 1) cells.push(excelCell(values[index]));
+  return cells;
+}
+
+function excelCell(value: unknown): CellValue {
+  if (value === null || value === undefined) return null;
+  if (typeof value === 'string') return value.trim() === '' ? null : value;
+  if (typeof value === 'number') return Number.isFinite(value) ? value : new CellFault('is not a finite number');
+  if (typeof value === 'boolean') return value;
+  if (value instanceof Date) return Number.isNaN(value.getTime()) ? new CellFault('is not a valid date') : value;
+  if (typeof value === 'object') {
+    const object = value as Record<string, unknown>;
+    if (Array.isArray(object.richText)) {
+      const text = (object.richText as { text?: unknown }[]).map((part) => (typeof part.text === 'string' ? part.text : '')).join('');
+      return text.trim() === '' ? null : text;
+    }
+    if ('formula' in object || 'sharedFormula' in object) {
+      if (object.result === undefined || object.result === null) {
+        return new CellFault('is a formula without a stored result; open the file in a spreadsheet program and save it again');
+      }
+      return excelCell(object.result);
+    }
+    if (typeof object.error === 'string') return new CellFault(`holds the spreadsheet error ${object.error}`);
+    if (typeof object.text === 'string') return object.text.trim() === '' ? null : object.text;
+  }
+  return new CellFault('holds a value that is neither text, a number nor a date');
+}
+
+function headerText(cell: CellValue): string {
+  if (cell === null || cell instanceof CellFault) return '';
+  if (cell instanceof Date) return cell.toISOString().slice(0, 10);
+  return String(cell).replace(/\s+/g, ' ').trim();
+}

@@ -1,0 +1,11 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { VariantComparisonDto } from '@shared/schemas/comparison';
+import { api } from '@/lib/api-client';
+import { variantsQueryKey } from './get-variant';
+
+export const getVariantComparison = (id: number) => api.get<VariantComparisonDto>(`/variants/${id}/comparison`);
+
+export const getVariantComparisonQueryOptions = (id: number) =>
+  queryOptions({ queryKey: [...variantsQueryKey(), id, 'comparison'], queryFn: () => getVariantComparison(id) });
+
+export const useVariantComparison = (id: number) => useQuery(getVariantComparisonQueryOptions(id));

@@ -1,0 +1,198 @@
+// Speed and memory of a spreadsheet import: generates a 10,000-row workbook of measurements (fitted values
+// for 300 invented variants), times exceljs reading every cell of it (the bare parse, with the same
+// streaming reader and options the import uses) and the full import of it (parse, validate with the API's
+// schemas, convert, compute flags and completeness, write in one transaction, recompute the variants'
+// summaries), and prints both, their ratio and the peak memory. Each run is a process of its own, so that
+// one run's heap does not count towards the next one's peak. A benchmark, not a test: `npm run bench:import`.
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { PassThrough, Readable } from 'node:stream';
+import ExcelJS from 'exceljs';
+import { detectColumns } from '../../shared/imports/detect-columns';
+import { openDatabase } from '../../server/data-source';
+import { getImport, settleImports, startCommit, uploadImport } from '../../server/modules/imports/imports.service';
+import { User } from '../../server/modules/users/user.entity';
+import { seedDemoAccounts } from '../../server/seed/demo-accounts';
+import { createCampaignWithParent, createEnzymeRow, createVariantRow, inventedSequence } from '../factories';
+
+const ROWS = 10_000;
+// A first, smaller import warms up the JIT for the parse and the import alike, as a running server is.
+const WARM_UP_ROWS = 1000;
+const VARIANTS = 300;
+const RUNS = Number(process.env.BENCH_RUNS ?? 3);
+const CHILD_FLAG = '--run';
+
+const sequence = inventedSequence(400);
+const substitutions = 'ACDEFGHIKLMNPQRSTVWY';
+
+interface RunFigures {
+  fileKilobytes: number;
+  cells: number;
+  parseMs: number;
+  parseCpuMs: number;
+  uploadMs: number;
+  importMs: number;
+  importCpuMs: number;
+  setupRssMegabytes: number;
+  peakRssMegabytes: number;
+}
+
+/** CPU time of this process (user and system), ms: less sensitive than the wall clock to other load on the machine. */
+function cpuMilliseconds(): number {
+  const usage = process.cpuUsage();
+  return (usage.user + usage.system) / 1000;
+}
+
+function peakRssMegabytes(): number {
+  // maxRSS is in kilobytes (getrusage(2)).
+  return process.resourceUsage().maxRSS / 1024;
+}
+
+// Written with the streaming writer, so that generating the file does not weigh on the memory figure.
+async function buildWorkbook(campaignName: string, labels: readonly string[], rows = ROWS): Promise<Buffer> {
+  const stream = new PassThrough();
+  const chunks: Buffer[] = [];
+  stream.on('data', (chunk: Buffer) => chunks.push(chunk));
+  const book = new ExcelJS.stream.xlsx.WorkbookWriter({ stream, useStyles: true, useSharedStrings: true });
+  const sheet = book.addWorksheet('Measurements');
+  sheet
+    .addRow([
+      'Campaign', 'Variant', 'Substrate', 'Temperature (°C)', 'pH', 'Buffer', 'Buffer concentration (mM)', 'Enzyme concentration (nM)',
+      'Assay date', 'Model', 'kcat (1/s)', 'kcat SE (1/s)', 'Km (mM)', 'Km SE (mM)', 'Replicates', 'Fitting method',
+    ])
+    .commit();
+  for (let index = 0; index < rows; index += 1) {
+    const day = new Date(Date.UTC(2026, 0, 1 + Math.floor(index / VARIANTS)));
+    const kcat = 5 + (index % 97) / 10;
+    const km = 0.2 + (index % 53) / 50;
+    const row = sheet.addRow([
+      campaignName, labels[index % labels.length], 'invented anilide', 37, 5.5 + (index % 5) / 2, 'MES', 50, 10,
+      day, 'michaelis-menten', kcat, kcat * 0.05, km, km * 0.08, 3, 'nonlinear least squares',
+    ]);
+    row.getCell(9).numFmt = 'yyyy-mm-dd';
+    row.commit();
+  }
+  sheet.commit();
+  await book.commit();
+  return Buffer.concat(chunks);
+}
+
+async function bareParse(buffer: Buffer): Promise<{ ms: number; cpuMs: number; cells: number }> {
+  const start = performance.now();
+  const cpuStart = cpuMilliseconds();
+  const reader = new ExcelJS.stream.xlsx.WorkbookReader(Readable.from(buffer), {
+    worksheets: 'emit',
+    sharedStrings: 'cache',
+    styles: 'cache',
+    hyperlinks: 'ignore',
+    entries: 'ignore',
+  });
+  let cells = 0;
+  for await (const worksheet of reader) {
+    for await (const row of worksheet as unknown as AsyncIterable<{ values: unknown[] }>) {
+      for (const value of row.values) if (value !== undefined) cells += 1;
+    }
+  }
+  return { ms: performance.now() - start, cpuMs: cpuMilliseconds() - cpuStart, cells };
+}
+
+/** One run, in this process: a fresh database, the workbook, the bare parse, then the import. */
+async function run(): Promise<RunFigures> {
+  const dataDir = mkdtempSync(join(tmpdir(), 'kcatalog-import-bench-'));
+  const dataSource = await openDatabase({ database: join(dataDir, 'kcatalog.sqlite') });
+  try {
+    await seedDemoAccounts(dataSource);
+    const lead = await dataSource.getRepository(User).findOneByOrFail({ email: 'lead@kcatalog.example' });
+    const actor = { id: lead.id, role: lead.role };
+    const enzyme = await createEnzymeRow(dataSource, { sequence });
+    const campaigns = [];
+    const labels: string[] = [];
+    for (let copy = 0; copy < 2; copy += 1) {
+      const { campaign } = await createCampaignWithParent(dataSource, { enzyme, targetPh: 5.5, targetTemperatureC: 37 });
+      campaigns.push(campaign);
+      for (let index = 0; index < VARIANTS; index += 1) {
+        const position = 2 + index;
+        const to = substitutions[(index * 7) % 20] === sequence[position - 1] ? 'W' : substitutions[(index * 7) % 20];
+        const mutation = { position, from: sequence[position - 1], to: to === sequence[position - 1] ? 'Y' : to };
+        await createVariantRow(dataSource, { campaign, mutations: [mutation] });
+        if (copy === 0) labels.push(`${mutation.from}${mutation.position}${mutation.to}`);
+      }
+    }
+    const importFile = async (buffer: Buffer, rows: number) => {
+      const uploadStart = performance.now();
+      const job = await uploadImport({ dataSource, dataDir }, actor, 'measurements', { originalName: 'bench.xlsx', buffer });
+      const uploadMs = performance.now() - uploadStart;
+      const { columns } = detectColumns('measurements', job.sheets[0].headers);
+      const importStart = performance.now();
+      const importCpuStart = cpuMilliseconds();
+      await startCommit({ dataSource, dataDir }, actor, job.id, { version: job.version, mode: 'all-or-nothing', sheet: job.sheets[0].name, columns });
+      await settleImports(dataSource);
+      const importMs = performance.now() - importStart;
+      const importCpuMs = cpuMilliseconds() - importCpuStart;
+      const result = await getImport(dataSource, actor, job.id);
+      if (result.status !== 'committed' || result.counts.new !== rows) {
+        throw new Error(`the import did not write every row: ${result.status} ${JSON.stringify(result.counts)} ${result.message}`);
+      }
+      return { uploadMs, importMs, importCpuMs };
+    };
+
+    const warmUp = await buildWorkbook(campaigns[1].name, labels, WARM_UP_ROWS);
+    await bareParse(warmUp);
+    await importFile(warmUp, WARM_UP_ROWS);
+
+    const buffer = await buildWorkbook(campaigns[0].name, labels);
+    const setupRssMegabytes = process.memoryUsage().rss / 1024 / 1024;
+    const parse = await bareParse(buffer);
+    const { uploadMs, importMs, importCpuMs } = await importFile(buffer, ROWS);
+    return {
+      fileKilobytes: buffer.length / 1024,
+      cells: parse.cells,
+      parseMs: parse.ms,
+      parseCpuMs: parse.cpuMs,
+      uploadMs,
+      importMs,
+      importCpuMs,
+      setupRssMegabytes,
+      peakRssMegabytes: peakRssMegabytes(),
+    };
+  } finally {
+    await dataSource.destroy();
+    rmSync(dataDir, { recursive: true, force: true });
+  }
+}
+
+function median(values: readonly number[]): number {
+  const sorted = [...values].sort((first, second) => first - second);
+  return sorted[Math.floor(sorted.length / 2)];
+}
+
+async function main(): Promise<void> {
+  if (process.argv.includes(CHILD_FLAG)) {
+    process.stdout.write(`${JSON.stringify(await run())}\n`);
+    return;
+  }
+  console.log(`Import benchmark: ${ROWS.toLocaleString('en-US')} measurement rows, ${VARIANTS} variants, ${RUNS} runs, each in a process of its own`);
+  const runs: RunFigures[] = [];
+  for (let index = 0; index < RUNS; index += 1) {
+    const child = spawnSync(process.execPath, [...process.execArgv, process.argv[1], CHILD_FLAG], { encoding: 'utf8', stdio: ['ignore', 'pipe', 'inherit'] });
+    if (child.status !== 0) throw new Error(`run ${index + 1} failed with exit code ${child.status}`);
+    const figures = JSON.parse(child.stdout.trim().split('\n').pop()!) as RunFigures;
+    runs.push(figures);
+    console.log(
+      `run ${index + 1}: file ${figures.fileKilobytes.toFixed(0)} kB, ${figures.cells.toLocaleString('en-US')} cells | ` +
+        `bare exceljs parse ${figures.parseMs.toFixed(0)} ms (CPU ${figures.parseCpuMs.toFixed(0)} ms) | ` +
+        `full import ${figures.importMs.toFixed(0)} ms (CPU ${figures.importCpuMs.toFixed(0)} ms) | ` +
+        `ratio ${(figures.importMs / figures.parseMs).toFixed(2)} (CPU ${(figures.importCpuMs / figures.parseCpuMs).toFixed(2)}) | ` +
+        `upload checks and sheet survey ${figures.uploadMs.toFixed(0)} ms | RSS before ${figures.setupRssMegabytes.toFixed(0)} MB, peak ${figures.peakRssMegabytes.toFixed(0)} MB`,
+    );
+  }
+  console.log(
+    `Median of ${RUNS}: bare parse ${median(runs.map((figures) => figures.parseMs)).toFixed(0)} ms, full import ${median(runs.map((figures) => figures.importMs)).toFixed(0)} ms, ` +
+      `ratio ${median(runs.map((figures) => figures.importMs / figures.parseMs)).toFixed(2)} (CPU-time ratio ${median(runs.map((figures) => figures.importCpuMs / figures.parseCpuMs)).toFixed(2)}); ` +
+      `highest peak RSS ${Math.max(...runs.map((figures) => figures.peakRssMegabytes)).toFixed(0)} MB. Targets: ratio ≤ 2, peak ≤ 300 MB.`,
+  );
+}
+
+await main();
