@@ -8,6 +8,7 @@ import { variantStatuses } from './variant';
 export const importKinds = ['variants', 'measurements', 'rate-points', 'ph-series'] as const;
 export type ImportKind = (typeof importKinds)[number];
 
+/** How each kind is named on the Imports page. */
 export const importKindLabels: Record<ImportKind, string> = {
   variants: 'Variants',
   measurements: 'Measurements (fitted values)',

@@ -111,5 +111,7 @@ export async function imported(
   const job = await uploaded(session, kind, name, content);
   const checked = await previewed(session, job, options);
   expect(checked.status, JSON.stringify(checked.problems.slice(0, 5))).toBe('previewed');
-  return committed(session, checked, options.mode);
+  const result = await committed(session, checked, options.mode);
+  expect(result.status, `${result.message} ${JSON.stringify(result.problems.slice(0, 5))}`).toBe('committed');
+  return result;
 }

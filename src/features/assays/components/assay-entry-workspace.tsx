@@ -179,7 +179,11 @@ export function AssayEntryWorkspace({ userId, initialVariantId, renderCharts }: 
   };
 
   const fileProblems = files.map(fileProblem).filter((problem) => problem !== null);
-  const chartPoints = live.points.map((point) => ({ key: point.key, s: point.x, v: point.y, replicate: point.replicate, excluded: point.excluded, reason: point.reason }));
+  // Stable between renders that do not change the points, so the charts are not rebuilt for nothing.
+  const chartPoints = useMemo(
+    () => live.points.map((point) => ({ key: point.key, s: point.x, v: point.y, replicate: point.replicate, excluded: point.excluded, reason: point.reason })),
+    [live.points],
+  );
   const chosenFit = live.preview?.chosen.error ? null : (live.preview?.chosen.fit?.fit ?? null);
 
   return (

@@ -169,8 +169,16 @@ export function PhProfileWorkspace({ initialVariantId, renderChart }: { initialV
     }
   });
 
-  const chartPkas = (live.preview?.pkas ?? []).map((pka) => ({ label: pka.parameter, value: pka.estimate.value, se: pkaSe(pka) }));
-  const optimum = live.preview?.optimum;
+  // Stable between renders that do not change the fit, so the chart is not rebuilt for nothing.
+  const chartInput = useMemo(() => {
+    const optimum = live.preview?.optimum;
+    return {
+      points: live.points.map((point) => ({ key: point.key, ph: point.x, k: point.y, excluded: point.excluded })),
+      fit: live.preview && !live.preview.error ? live.preview.fit : null,
+      pkas: (live.preview?.pkas ?? []).map((pka) => ({ label: pka.parameter, value: pka.estimate.value, se: pkaSe(pka) })),
+      optimum: optimum ? { label: 'pH optimum', value: optimum.value, se: Number.isFinite(optimum.se) ? optimum.se : null } : null,
+    };
+  }, [live]);
 
   return (
     <form noValidate onSubmit={handleSave} className="grid gap-6 lg:grid-cols-[minmax(0,5fr)_minmax(0,6fr)]">
@@ -287,12 +295,9 @@ export function PhProfileWorkspace({ initialVariantId, renderChart }: { initialV
           {live.preview ? (
             <LiveFitBoundary resetKey={JSON.stringify([live.preview.requestPoints, model, rateKind, unit])}>
               {renderChart({
-                points: live.points.map((point) => ({ key: point.key, ph: point.x, k: point.y, excluded: point.excluded })),
-                fit: live.preview.error ? null : live.preview.fit,
+                ...chartInput,
                 curveLabel: `${model === 'bell' ? 'Bell-shaped' : model === 'acid' ? 'Acid-limb' : 'Base-limb'} fit`,
                 rateTitle,
-                pkas: chartPkas,
-                optimum: optimum ? { label: 'pH optimum', value: optimum.value, se: Number.isFinite(optimum.se) ? optimum.se : null } : null,
                 onPointClick: handleToggleExclusion,
               })}
               <PhFitResults preview={live.preview} unitText={unitLabel(rateKind, unit)} candidates={candidates} sitesLoading={variant.data !== undefined && sites.isPending} />

@@ -67,7 +67,8 @@ export function AssayFitCharts({ points, fit, curveLabel, sUnit, vUnit, subject,
   return (
     <div className="space-y-3">
       <VegaChart
-        spec={specs.rate}
+        spec={specs.rate.spec}
+        datasets={specs.rate.datasets}
         title={subject ? `${subject} Michaelis–Menten plot` : 'Michaelis–Menten plot'}
         description={`Initial rate v₀ (${vUnit}) against substrate concentration (${sUnit}) for ${points.length} points${fit ? `, with the ${curveLabel.toLowerCase()} and its 95 % confidence band` : ''}.`}
         fileName={`${fileBase}-michaelis-menten`}
@@ -77,7 +78,8 @@ export function AssayFitCharts({ points, fit, curveLabel, sUnit, vUnit, subject,
       />
       {specs.residuals && (
         <VegaChart
-          spec={specs.residuals}
+          spec={specs.residuals.spec}
+          datasets={specs.residuals.datasets}
           title={subject ? `${subject} residual plot` : 'Residual plot'}
           description={`Residuals, observed minus fitted v₀ (${vUnit}), against substrate concentration.`}
           fileName={`${fileBase}-residuals`}

@@ -25,7 +25,7 @@ const PH_MARGIN = 0.3;
 
 /** A pH–rate profile with its fit, 95 % band, pKa markers and the pH optimum. */
 export function PhProfileChart({ points, fit, curveLabel, rateTitle, pkas, optimum, subject, subtitle, onPointClick }: PhProfileChartProps) {
-  const spec = useMemo(() => {
+  const chart = useMemo(() => {
     let lowest = Number.POSITIVE_INFINITY;
     let highest = Number.NEGATIVE_INFINITY;
     for (const point of points) {
@@ -49,7 +49,8 @@ export function PhProfileChart({ points, fit, curveLabel, rateTitle, pkas, optim
 
   return (
     <VegaChart
-      spec={spec}
+      spec={chart.spec}
+      datasets={chart.datasets}
       title={subject ? `${subject} pH–rate profile` : 'pH–rate profile'}
       description={`${rateTitle} against pH for ${points.length} points${pkas.length > 0 ? `; fitted ${pkas.map((pka) => `${pka.label} ${pka.value.toFixed(2)}`).join(', ')}` : ''}${optimum ? `; pH optimum ${optimum.value.toFixed(2)}` : ''}.`}
       fileName={`${(subject ?? 'ph-profile').toLowerCase()}-ph-profile`}

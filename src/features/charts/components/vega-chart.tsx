@@ -9,6 +9,8 @@ const VegaView = lazy(() => import('./vega-view'));
 
 export interface VegaChartProps {
   spec: TopLevelSpec;
+  /** Rows of the spec's named datasets, for charts whose data change while their shape stays. */
+  datasets?: Record<string, readonly object[]>;
   /** The chart's name, for its accessible name and the download buttons (the spec carries the visible title). */
   title: string;
   /** What the chart shows, in a sentence, for readers who cannot see it. */
@@ -33,7 +35,7 @@ const UNSAFE_FILE_CHARACTERS = /[^\p{L}\p{N}._-]+/gu;
 /**
  * A Vega-Lite chart in a card, with PNG and SVG downloads and a text description. The view itself is lazy.
  */
-export function VegaChart({ spec, title, description, fileName, renderer = 'svg', onDatumClick, timingName, heightClass = 'min-h-72', scrollable = false, children }: VegaChartProps) {
+export function VegaChart({ spec, datasets, title, description, fileName, renderer = 'svg', onDatumClick, timingName, heightClass = 'min-h-72', scrollable = false, children }: VegaChartProps) {
   const [view, setView] = useState<View | null>(null);
   const [error, setError] = useState<unknown>(null);
   const [attempt, setAttempt] = useState(0);
@@ -76,7 +78,7 @@ export function VegaChart({ spec, title, description, fileName, renderer = 'svg'
         ) : (
           <ChartBoundary key={attempt} onError={setError}>
             <Suspense fallback={<LoadingState label="Drawing the chart…" />}>
-              <VegaView spec={spec} renderer={renderer} onView={setView} onDatumClick={onDatumClick} timingName={timingName} onError={setError} />
+              <VegaView spec={spec} datasets={datasets} renderer={renderer} onView={setView} onDatumClick={onDatumClick} timingName={timingName} onError={setError} />
             </Suspense>
           </ChartBoundary>
         )}

@@ -1,4 +1,4 @@
-import { useLayoutEffect, useMemo, useRef } from 'react';
+import { useEffect, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import { VegaEmbed } from 'react-vega';
 import type { View } from 'vega';
 import type { EmbedOptions, Result } from 'vega-embed';
@@ -8,8 +8,10 @@ import { vegaConfig } from '../chart-theme';
 
 export interface VegaViewProps {
   spec: TopLevelSpec;
+  /** Rows of the spec's named datasets; a change reaches the drawn view without compiling it again. */
+  datasets?: Record<string, readonly object[]>;
   renderer: 'svg' | 'canvas';
-  /** The view once it is drawn (for downloads), null when it is replaced. */
+  /** The view once it is drawn (for downloads), null while it is being replaced. */
   onView: (view: View | null) => void;
   /** Called with the data row under the pointer when a mark is clicked. */
   onDatumClick?: (datum: Record<string, unknown>) => void;
@@ -22,7 +24,21 @@ export interface VegaViewProps {
  * The part of a chart that needs Vega, loaded as its own chunk. Expressions run through vega-interpreter
  * (`ast: true`), so the Content-Security-Policy needs no 'unsafe-eval'.
  */
-export default function VegaView({ spec, renderer, onView, onDatumClick, timingName, onError }: VegaViewProps) {
+export default function VegaView({ spec, datasets, renderer, onView, onDatumClick, timingName, onError }: VegaViewProps) {
+  // The spec as last embedded: a rebuilt but equal spec keeps the drawn view (only its data change).
+  const specText = JSON.stringify(spec);
+  const [embedded, setEmbedded] = useState({ text: specText, spec });
+  if (embedded.text !== specText) setEmbedded({ text: specText, spec });
+
+  const latestData = useRef(datasets);
+  const shownData = useRef<VegaViewProps['datasets']>(undefined);
+  const [view, setView] = useState<View | null>(null);
+  const handlers = useRef({ onDatumClick, onView, onError });
+  useLayoutEffect(() => {
+    handlers.current = { onDatumClick, onView, onError };
+    latestData.current = datasets;
+  });
+
   const options = useMemo<EmbedOptions>(
     () => ({
       mode: 'vega-lite',
@@ -32,20 +48,31 @@ export default function VegaView({ spec, renderer, onView, onDatumClick, timingN
       actions: false,
       renderer,
       config: vegaConfig,
+      // The first drawing already holds the data, read from a ref so the options never change with it.
+      patch: (compiled) => {
+        shownData.current = latestData.current;
+        const rows = latestData.current;
+        return { ...compiled, data: compiled.data?.map((entry) => (rows?.[entry.name] ? { ...entry, values: [...rows[entry.name]] } : entry)) };
+      },
     }),
     [renderer],
   );
+
   const startedAt = useRef(0);
-  const handlers = useRef({ onDatumClick, onView });
-  useLayoutEffect(() => {
-    handlers.current = { onDatumClick, onView };
-  });
   // A layout effect runs before the embed's passive effect, so the measure covers compile, parse and draw;
   // the old view is finalized by the embed, so downloads wait for the new one.
   useLayoutEffect(() => {
     startedAt.current = performance.now();
+    setView(null);
     handlers.current.onView(null);
-  }, [spec]);
+  }, [embedded.spec]);
+
+  useEffect(() => {
+    if (!view || !datasets || shownData.current === datasets) return;
+    shownData.current = datasets;
+    for (const [name, rows] of Object.entries(datasets)) view.data(name, [...rows]);
+    view.runAsync().catch((error: unknown) => handlers.current.onError(error));
+  }, [view, datasets]);
 
   const handleEmbed = (result: Result) => {
     if (timingName) performance.measure(timingName, { start: startedAt.current, end: performance.now() });
@@ -53,8 +80,9 @@ export default function VegaView({ spec, renderer, onView, onDatumClick, timingN
       const datum = (item as { datum?: unknown } | null | undefined)?.datum;
       if (datum && typeof datum === 'object') handlers.current.onDatumClick?.(datum as Record<string, unknown>);
     });
+    setView(result.view);
     handlers.current.onView(result.view);
   };
 
-  return <VegaEmbed spec={spec} options={options} onEmbed={handleEmbed} onError={onError} className="w-full" />;
+  return <VegaEmbed spec={embedded.spec} options={options} onEmbed={handleEmbed} onError={onError} className="w-full" />;
 }

@@ -1,7 +1,7 @@
 import type { TopLevelSpec } from 'vega-lite';
 import type { BandPoint } from '@shared/kinetics/confidence-band';
 import { chartColors } from '../chart-theme';
-import { BAND_LABEL, EXCLUDED_LABEL, chartFrame, excludedSeries, seriesScales, withUnit } from './spec-parts';
+import { BAND_LABEL, type ChartWithData, type LayerList, EXCLUDED_LABEL, chartFrame, excludedSeries, seriesScales, withUnit } from './spec-parts';
 
 /** One rate point as a chart draws it, in the units it was entered in. */
 export interface RatePointDatum {
@@ -37,9 +37,9 @@ export const replicateLabel = (replicate: number) => `Replicate ${replicate}`;
  * curve and its 95 % confidence band.
  *
  * @param input the points, the curve and the units
- * @returns a Vega-Lite spec
+ * @returns a Vega-Lite spec with datasets `band`, `curve` and `points`
  */
-export function michaelisMentenSpec(input: MichaelisMentenSpecInput): TopLevelSpec {
+export function michaelisMentenSpec(input: MichaelisMentenSpecInput): ChartWithData {
   const replicates = [...new Set(input.points.filter((point) => !point.excluded).map((point) => point.replicate))].sort((a, b) => a - b);
   const fixed = [
     ...(input.points.some((point) => point.excluded) ? [excludedSeries] : []),
@@ -55,50 +55,52 @@ export function michaelisMentenSpec(input: MichaelisMentenSpecInput): TopLevelSp
     status: point.excluded ? `excluded${point.reason ? `: ${point.reason}` : ''}` : 'in the fit',
   }));
   const curve = input.curve.map((point) => ({ ...point, series: input.curveLabel }));
-  const band = input.hasBand ? input.curve.map((point) => ({ ...point, series: BAND_LABEL })) : [];
+  const band = input.curve.map((point) => ({ ...point, series: BAND_LABEL }));
   // Solid legend symbols: the merged legend would otherwise take the band's transparency.
   const color = { field: 'series', type: 'nominal', title: null, scale: { domain: scales.domain, range: scales.colors }, legend: { symbolOpacity: 1 } } as const;
 
-  return {
-    ...chartFrame(input.title, input.subtitle, `Initial rate against substrate concentration, ${input.points.length} points, with the ${input.curveLabel.toLowerCase()}.`),
+  // Layers without data are left out: Vega warns about the empty extent of their scales.
+  const bandLayers: LayerList = input.hasBand && input.curve.length > 0
+    ? [
+        {
+          data: { name: 'band' },
+          mark: { type: 'area', opacity: 0.45 },
+          encoding: {
+            x: { field: 'x', type: 'quantitative', title: sTitle },
+            y: { field: 'lower', type: 'quantitative', title: vTitle },
+            y2: { field: 'upper' },
+            color,
+            tooltip: [
+              { field: 'x', type: 'quantitative', title: sTitle, format: '.3~g' },
+              { field: 'lower', type: 'quantitative', title: 'band, lower', format: '.3~g' },
+              { field: 'upper', type: 'quantitative', title: 'band, upper', format: '.3~g' },
+            ],
+          },
+        },
+      ]
+    : [];
+  const curveLayers: LayerList = input.curve.length > 0
+    ? [
+        {
+          data: { name: 'curve' },
+          mark: { type: 'line', strokeWidth: 2 },
+          encoding: {
+            x: { field: 'x', type: 'quantitative', title: sTitle },
+            y: { field: 'y', type: 'quantitative', title: vTitle },
+            color,
+          },
+        },
+      ]
+    : [];
+  const spec: TopLevelSpec = {
+    ...chartFrame(input.title, input.subtitle, `Initial rate against substrate concentration with the ${input.curveLabel}.`),
     width: 'container',
     height: 300,
     layer: [
-      // Layers without data are left out: Vega warns about the empty extent of their scales.
-      ...(input.hasBand && input.curve.length > 0
-        ? [
-          {
-            data: { values: band },
-            mark: { type: 'area', opacity: 0.45 },
-            encoding: {
-              x: { field: 'x', type: 'quantitative', title: sTitle },
-              y: { field: 'lower', type: 'quantitative', title: vTitle },
-              y2: { field: 'upper' },
-              color,
-              tooltip: [
-                { field: 'x', type: 'quantitative', title: sTitle, format: '.3~g' },
-                { field: 'lower', type: 'quantitative', title: 'band, lower', format: '.3~g' },
-                { field: 'upper', type: 'quantitative', title: 'band, upper', format: '.3~g' },
-              ],
-            },
-          },
-          ]
-        : []),
-      ...(input.curve.length > 0
-        ? [
-          {
-            data: { values: curve },
-            mark: { type: 'line', strokeWidth: 2 },
-            encoding: {
-              x: { field: 'x', type: 'quantitative', title: sTitle },
-              y: { field: 'y', type: 'quantitative', title: vTitle },
-              color,
-            },
-          },
-          ]
-        : []),
+      ...bandLayers,
+      ...curveLayers,
       {
-        data: { values: points },
+        data: { name: 'points' },
         mark: { type: 'point', filled: true, size: 70, opacity: 1, cursor: input.clickable ? 'pointer' : 'default' },
         encoding: {
           x: { field: 's', type: 'quantitative', title: sTitle },
@@ -115,4 +117,5 @@ export function michaelisMentenSpec(input: MichaelisMentenSpecInput): TopLevelSp
       },
     ],
   };
+  return { spec, datasets: { band, curve, points } };
 }

@@ -1,7 +1,7 @@
 import type { TopLevelSpec } from 'vega-lite';
 import type { BandPoint } from '@shared/kinetics/confidence-band';
 import { chartColors, seriesStyle } from '../chart-theme';
-import { BAND_LABEL, EXCLUDED_LABEL, chartFrame, excludedSeries, seriesScales } from './spec-parts';
+import { BAND_LABEL, type ChartWithData, type LayerList, EXCLUDED_LABEL, chartFrame, excludedSeries, seriesScales } from './spec-parts';
 
 /** One point of a pH profile. */
 export interface PhPointDatum {
@@ -45,9 +45,9 @@ function markerText(marker: PhMarker): string {
  * pKa and a solid one at the pH optimum, each labelled with its value and standard error.
  *
  * @param input points, curve, markers and the rate's axis title
- * @returns a Vega-Lite spec
+ * @returns a Vega-Lite spec with datasets `band`, `curve`, `markers` and `points`
  */
-export function phProfileSpec(input: PhProfileSpecInput): TopLevelSpec {
+export function phProfileSpec(input: PhProfileSpecInput): ChartWithData {
   const hasExcluded = input.points.some((point) => point.excluded);
   const scales = seriesScales([], [
     { label: MEASURED_LABEL, ...seriesStyle(0) },
@@ -63,65 +63,74 @@ export function phProfileSpec(input: PhProfileSpecInput): TopLevelSpec {
     ...input.pkas.map((marker) => ({ ...marker, series: PKA_LABEL, text: markerText(marker) })),
     ...(input.optimum ? [{ ...input.optimum, series: OPTIMUM_LABEL, text: markerText(input.optimum) }] : []),
   ];
+  const band = input.curve.map((point) => ({ ...point, series: BAND_LABEL }));
+  const curve = input.curve.map((point) => ({ ...point, series: input.curveLabel }));
   const phTitle = 'pH';
-  return {
-    ...chartFrame(input.title, input.subtitle, `${input.rateTitle} against pH, ${input.points.length} points, with the fitted curve, its pKa values and the pH optimum.`),
+  // Layers without data are left out: Vega warns about the empty extent of their scales.
+  const bandLayers: LayerList = input.hasBand && input.curve.length > 0
+    ? [
+        {
+          data: { name: 'band' },
+          mark: { type: 'area', opacity: 0.45 },
+          encoding: {
+            x: { field: 'x', type: 'quantitative', title: phTitle, scale: { zero: false } },
+            y: { field: 'lower', type: 'quantitative', title: input.rateTitle },
+            y2: { field: 'upper' },
+            color,
+          },
+        },
+      ]
+    : [];
+  const curveLayers: LayerList = input.curve.length > 0
+    ? [
+        {
+          data: { name: 'curve' },
+          mark: { type: 'line', strokeWidth: 2 },
+          encoding: {
+            x: { field: 'x', type: 'quantitative', title: phTitle, scale: { zero: false } },
+            y: { field: 'y', type: 'quantitative', title: input.rateTitle },
+            color,
+          },
+        },
+      ]
+    : [];
+  const markerLayers: LayerList = markers.length > 0
+    ? [
+        {
+          data: { name: 'markers' },
+          layer: [
+            {
+              mark: { type: 'rule', strokeWidth: 1.5 },
+              encoding: {
+                x: { field: 'value', type: 'quantitative', title: phTitle },
+                color,
+                strokeDash: { condition: { test: `datum.series === '${PKA_LABEL}'`, value: [5, 3] }, value: [1, 0] },
+                tooltip: [{ field: 'text', type: 'nominal', title: 'Fitted' }],
+              },
+            },
+            {
+              mark: { type: 'text', angle: 270, align: 'right', baseline: 'bottom', dx: -4, dy: -3, fontSize: 11 },
+              encoding: {
+                x: { field: 'value', type: 'quantitative', title: phTitle },
+                y: { value: 0 },
+                text: { field: 'text' },
+                color,
+              },
+            },
+          ],
+        },
+      ]
+    : [];
+  const spec: TopLevelSpec = {
+    ...chartFrame(input.title, input.subtitle, `${input.rateTitle} against pH with the fitted curve, its pKa values and the pH optimum.`),
     width: 'container',
     height: 300,
     layer: [
-      // Layers without data are left out: Vega warns about the empty extent of their scales.
-      ...(input.hasBand && input.curve.length > 0
-        ? [
-          {
-            data: { values: input.hasBand ? input.curve.map((point) => ({ ...point, series: BAND_LABEL })) : [] },
-            mark: { type: 'area', opacity: 0.45 },
-            encoding: {
-              x: { field: 'x', type: 'quantitative', title: phTitle, scale: { zero: false } },
-              y: { field: 'lower', type: 'quantitative', title: input.rateTitle },
-              y2: { field: 'upper' },
-              color,
-            },
-          },
-          ]
-        : []),
-      ...(input.curve.length > 0
-        ? [
-          {
-            data: { values: input.curve.map((point) => ({ ...point, series: input.curveLabel })) },
-            mark: { type: 'line', strokeWidth: 2 },
-            encoding: {
-              x: { field: 'x', type: 'quantitative', title: phTitle, scale: { zero: false } },
-              y: { field: 'y', type: 'quantitative', title: input.rateTitle },
-              color,
-            },
-          },
-          ]
-        : []),
+      ...bandLayers,
+      ...curveLayers,
+      ...markerLayers,
       {
-        data: { values: markers },
-        layer: [
-          {
-            mark: { type: 'rule', strokeWidth: 1.5 },
-            encoding: {
-              x: { field: 'value', type: 'quantitative', title: phTitle },
-              color,
-              strokeDash: { condition: { test: `datum.series === '${PKA_LABEL}'`, value: [5, 3] }, value: [1, 0] },
-              tooltip: [{ field: 'text', type: 'nominal', title: 'Fitted' }],
-            },
-          },
-          {
-            mark: { type: 'text', angle: 270, align: 'right', baseline: 'bottom', dx: -4, dy: -3, fontSize: 11 },
-            encoding: {
-              x: { field: 'value', type: 'quantitative', title: phTitle },
-              y: { value: 0 },
-              text: { field: 'text' },
-              color,
-            },
-          },
-        ],
-      },
-      {
-        data: { values: points },
+        data: { name: 'points' },
         mark: { type: 'point', filled: true, size: 70, opacity: 1, cursor: input.clickable ? 'pointer' : 'default' },
         encoding: {
           x: { field: 'ph', type: 'quantitative', title: phTitle, scale: { zero: false } },
@@ -137,4 +146,5 @@ export function phProfileSpec(input: PhProfileSpecInput): TopLevelSpec {
       },
     ],
   };
+  return { spec, datasets: { band, curve, markers, points } };
 }

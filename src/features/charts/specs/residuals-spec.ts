@@ -1,7 +1,7 @@
 import type { TopLevelSpec } from 'vega-lite';
 import { chartColors } from '../chart-theme';
 import { replicateLabel, type RatePointDatum } from './michaelis-menten-spec';
-import { EXCLUDED_LABEL, chartFrame, excludedSeries, seriesScales, withUnit } from './spec-parts';
+import { EXCLUDED_LABEL, chartFrame, type ChartWithData, excludedSeries, seriesScales, withUnit } from './spec-parts';
 
 export interface ResidualsSpecInput {
   title: string;
@@ -19,9 +19,9 @@ export interface ResidualsSpecInput {
  * from the curve they did not enter.
  *
  * @param input the points with residuals and the units
- * @returns a Vega-Lite spec
+ * @returns a Vega-Lite spec with the dataset `points`
  */
-export function residualsSpec(input: ResidualsSpecInput): TopLevelSpec {
+export function residualsSpec(input: ResidualsSpecInput): ChartWithData {
   const replicates = [...new Set(input.points.filter((point) => !point.excluded).map((point) => point.replicate))].sort((a, b) => a - b);
   const scales = seriesScales(replicates.map(replicateLabel), input.points.some((point) => point.excluded) ? [excludedSeries] : []);
   const sTitle = withUnit('[S]', input.sUnit);
@@ -30,8 +30,8 @@ export function residualsSpec(input: ResidualsSpecInput): TopLevelSpec {
     ...point,
     series: point.excluded ? EXCLUDED_LABEL : replicateLabel(point.replicate),
   }));
-  return {
-    ...chartFrame(input.title, input.subtitle, `Residuals of the fit against substrate concentration for ${input.points.length} points.`),
+  const spec: TopLevelSpec = {
+    ...chartFrame(input.title, input.subtitle, 'Residuals of the fit against substrate concentration.'),
     width: 'container',
     height: 180,
     layer: [
@@ -41,7 +41,7 @@ export function residualsSpec(input: ResidualsSpecInput): TopLevelSpec {
         encoding: { y: { field: 'zero', type: 'quantitative' } },
       },
       {
-        data: { values: points },
+        data: { name: 'points' },
         mark: { type: 'point', filled: true, size: 60, opacity: 1, cursor: input.clickable ? 'pointer' : 'default' },
         encoding: {
           x: { field: 's', type: 'quantitative', title: sTitle },
@@ -57,4 +57,5 @@ export function residualsSpec(input: ResidualsSpecInput): TopLevelSpec {
       },
     ],
   };
+  return { spec, datasets: { points } };
 }

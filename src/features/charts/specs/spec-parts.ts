@@ -12,6 +12,18 @@ export const EXCLUDED_LABEL = 'Excluded';
 /** Series name of the confidence band. */
 export const BAND_LABEL = '95 % confidence band';
 
+/**
+ * A chart whose data change more often than its shape (the live fit): the spec names its datasets and
+ * `datasets` holds their rows, so new data reach the drawn view without compiling the chart again.
+ */
+export interface ChartWithData {
+  spec: TopLevelSpec;
+  datasets: Record<string, readonly object[]>;
+}
+
+/** The layers of a layered chart, for building some of them only when they have data. */
+export type LayerList = Extract<TopLevelSpec, { layer: unknown }>['layer'];
+
 /** The parts every chart starts with: schema, title and subtitle, description, the container width. */
 export function chartFrame(title: string, subtitle: string | undefined, description: string): Pick<TopLevelSpec, '$schema' | 'title' | 'description'> {
   return {

@@ -55,8 +55,8 @@ function legendCount(vega: Spec): number {
 }
 
 /** Renders without code generation and checks what every chart must have: a title, axis titles, a legend, tooltips. */
-async function expectCompleteChart(spec: TopLevelSpec, axisUnits: readonly string[]) {
-  const { svg, vega, warnings } = await renderSpec(spec);
+async function expectCompleteChart(spec: TopLevelSpec, axisUnits: readonly string[], datasets?: Record<string, readonly object[]>) {
+  const { svg, vega, warnings } = await renderSpec(spec, datasets);
   // Charts that fill their container cannot find one here, and Vega-Lite says a container-wide chart with
   // one row per category keeps its own height; anything else it warns about is a defect.
   expect(warnings.filter((warning) => !/event source: window|Dropping "fit-y" because spec has discrete height/.test(warning))).toEqual([]);
@@ -89,24 +89,26 @@ describe('fittedCurve', () => {
 describe('assay charts', () => {
   it('draws the Michaelis–Menten plot with replicates, the excluded point, the fit and its band', async () => {
     const curve = fittedCurve(puromycin, linearGrid(0, 1.2, 50));
-    const spec = michaelisMentenSpec({ title: 'Puromycin', points: ratePoints, curve: curve.points, hasBand: true, curveLabel: 'Michaelis–Menten fit', sUnit: 'mM', vUnit: 'µM/min', clickable: true });
-    const { vega } = await expectCompleteChart(spec, ['[S] (mM)', 'v₀ (µM/min)']);
+    const { spec, datasets } = michaelisMentenSpec({ title: 'Puromycin', points: ratePoints, curve: curve.points, hasBand: true, curveLabel: 'Michaelis–Menten fit', sUnit: 'mM', vUnit: 'µM/min', clickable: true });
+    const { vega, svg } = await expectCompleteChart(spec, ['[S] (mM)', 'v₀ (µM/min)'], datasets);
+    // Every point is drawn, the excluded one as well.
+    expect(svg.match(/Status: /g)).toHaveLength(12);
     const domain = JSON.stringify(vega.scales ?? []);
     for (const series of ['Replicate 1', 'Replicate 2', 'Excluded', 'Michaelis–Menten fit', '95 % confidence band']) expect(domain).toContain(series);
-    const [band] = layerValues(spec);
+    const band = datasets.band as AnyRecord[];
     expect(band.every((point) => (point.lower as number) <= (point.y as number) && (point.y as number) <= (point.upper as number))).toBe(true);
   });
 
   it('draws residuals that are the fit’s own residuals for the points in it', async () => {
     const atPoints = fittedCurve(puromycin, S_MM).points;
     const points = ratePoints.map((point, index) => ({ ...point, excluded: false, residual: point.v - atPoints[index].y }));
-    const spec = residualsSpec({ title: 'Residuals', points, sUnit: 'mM', vUnit: 'µM/min', clickable: false });
-    await expectCompleteChart(spec, ['[S] (mM)', 'µM/min']);
+    const { spec, datasets } = residualsSpec({ title: 'Residuals', points, sUnit: 'mM', vUnit: 'µM/min', clickable: false });
+    await expectCompleteChart(spec, ['[S] (mM)', 'µM/min'], datasets);
     points.forEach((point, index) => expect(point.residual).toBeCloseTo(puromycin.residuals[index], 8));
   });
 
   it('marks fitted pKa values and the optimum on a pH profile', async () => {
-    const spec = phProfileSpec({
+    const { spec, datasets } = phProfileSpec({
       title: 'pH profile',
       points: [4, 5, 6, 7, 8, 9].map((ph, index) => ({ key: String(index), ph, k: 1 / (1 + 10 ** (5 - ph) + 10 ** (ph - 8)), excluded: false })),
       curve: linearGrid(4, 9, 20).map((x) => ({ x, y: 1, lower: 0.9, upper: 1.1 })),
@@ -120,7 +122,7 @@ describe('assay charts', () => {
       optimum: { label: 'pH optimum', value: 6.5, se: 0.04 },
       clickable: false,
     });
-    const { svg } = await expectCompleteChart(spec, ['pH', 'kcat/Km (M⁻¹ s⁻¹)']);
+    const { svg } = await expectCompleteChart(spec, ['pH', 'kcat/Km (M⁻¹ s⁻¹)'], datasets);
     expect(svg).toContain('pKa1 5.00 ± 0.05');
     expect(svg).toContain('pKa2 8.00');
     expect(svg).toContain('pH optimum 6.50 ± 0.04');

@@ -4,12 +4,12 @@ import { compile, type TopLevelSpec } from 'vega-lite';
 import { vegaConfig } from '@/features/charts/chart-theme';
 
 /**
- * Compiles a Vega-Lite spec with the charts' config and renders it to SVG the way the browser does it under
+ * Compiles a Vega-Lite spec with the charts' config, fills its named datasets, and renders it to SVG the way the browser does it under
  * our Content-Security-Policy: parsed with `ast: true` and evaluated by vega-interpreter, with the
  * Function constructor made to throw, so any code generation would fail the test. Returns the SVG, the
  * compiled Vega spec and the warnings Vega-Lite and Vega logged.
  */
-export async function renderSpec(spec: TopLevelSpec): Promise<{ svg: string; vega: Spec; warnings: string[] }> {
+export async function renderSpec(spec: TopLevelSpec, datasets: Record<string, readonly object[]> = {}): Promise<{ svg: string; vega: Spec; warnings: string[] }> {
   const warnings: string[] = [];
   const logger = {
     level: () => logger,
@@ -35,6 +35,8 @@ export async function renderSpec(spec: TopLevelSpec): Promise<{ svg: string; veg
   });
   try {
     const view = new View(parse(vega, undefined, { ast: true }), { expr: expressionInterpreter, renderer: 'none', logger: logger as never });
+    // Named datasets get their rows as the page gives them to a drawn view.
+    for (const [name, rows] of Object.entries(datasets)) view.data(name, [...rows]);
     // Charts that fill their container get a fixed width here.
     view.width(Math.max(view.width(), 600));
     const svg = await view.toSVG();
