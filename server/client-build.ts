@@ -22,5 +22,14 @@ export async function ensureClientBuilt(rootDir: string, clientDir: string): Pro
   }
   console.log('Building the client (first start or changed sources)…');
   const { build } = await import('vite');
-  await build({ root: rootDir, configFile: join(rootDir, 'vite.config.ts'), logLevel: 'warn' });
+  // Always the production build: under a test runner NODE_ENV is `test`, and Vite then bundles React's
+  // development build (slower, StrictMode effects run twice), which is not what the server should serve.
+  const nodeEnv = process.env.NODE_ENV;
+  process.env.NODE_ENV = 'production';
+  try {
+    await build({ root: rootDir, configFile: join(rootDir, 'vite.config.ts'), logLevel: 'warn' });
+  } finally {
+    if (nodeEnv === undefined) delete process.env.NODE_ENV;
+    else process.env.NODE_ENV = nodeEnv;
+  }
 }

@@ -1,6 +1,7 @@
 import { extname } from 'node:path';
 import { maxImportBytes, maxUncompressedWorkbookBytes } from '@shared/schemas/import';
 import { HttpError } from '../../http/errors';
+import { workbookSheetNames } from './workbook-sheet-names';
 import { readZipCentralDirectory, verifyInflatedSizes, ZipRefusal } from './zip-central-directory';
 
 /** Media types stored with the attachment. */
@@ -9,12 +10,16 @@ export const importMediaTypes = {
   csv: 'text/csv',
 } as const;
 
-/** An upload whose content is a workbook or UTF-8 text, as its name says. */
-export type CheckedUpload = { format: 'xlsx'; buffer: Buffer } | { format: 'csv'; buffer: Buffer; text: string };
+/**
+ * An upload whose content is a workbook or UTF-8 text, as its name says; a workbook with its sheet names by
+ * part number (`xl/worksheets/sheetN.xml`), in the workbook's order.
+ */
+export type CheckedUpload = { format: 'xlsx'; buffer: Buffer; sheetNames: Map<number, string> } | { format: 'csv'; buffer: Buffer; text: string };
 
 // The parts every SpreadsheetML package has (ECMA-376 Part 2, Open Packaging Conventions §10.1.2; Part 1 §12.3.23).
 const CONTENT_TYPES_PART = '[Content_Types].xml';
 const WORKBOOK_PART = 'xl/workbook.xml';
+const WORKBOOK_RELATIONSHIPS_PART = 'xl/_rels/workbook.xml.rels';
 const WORKBOOK_CONTENT_TYPE = 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet.main+xml';
 const MACRO_WORKBOOK_CONTENT_TYPE = 'application/vnd.ms-excel.sheet.macroEnabled.main+xml';
 
@@ -36,7 +41,7 @@ function refuse(message: string): HttpError {
  *
  * @param file the original name and the bytes
  * @throws {HttpError} 400 on `file`, saying what is wrong
- * @returns the format, the bytes and, for CSV, the decoded text without a byte-order mark
+ * @returns the format, the bytes, and the sheet names of a workbook or the decoded text (without a byte-order mark) of a CSV file
  */
 export async function checkUpload(file: { originalName: string; buffer: Buffer }): Promise<CheckedUpload> {
   const { buffer } = file;
@@ -52,24 +57,24 @@ export async function checkUpload(file: { originalName: string; buffer: Buffer }
   if (extension === '.xlsx') {
     if (looksCompound) throw refuse('it is a legacy .xls workbook or a password-protected one; save it as an .xlsx workbook without a password');
     if (!looksZip) throw refuse('it is named .xlsx but is not an Excel workbook (its content is no ZIP package)');
-    await checkWorkbookPackage(buffer);
-    return { format: 'xlsx', buffer };
+    return { format: 'xlsx', buffer, sheetNames: await checkWorkbookPackage(buffer) };
   }
   if (looksZip || looksCompound) throw refuse('it is named .csv but holds a workbook; name it .xlsx or save the sheet as CSV');
   return { format: 'csv', buffer, text: decodeCsv(buffer) };
 }
 
-async function checkWorkbookPackage(buffer: Buffer): Promise<void> {
+async function checkWorkbookPackage(buffer: Buffer): Promise<Map<number, string>> {
   try {
     const entries = readZipCentralDirectory(buffer, maxUncompressedWorkbookBytes);
     const names = new Set(entries.map((entry) => entry.name));
     if (!names.has(CONTENT_TYPES_PART) || !names.has(WORKBOOK_PART)) {
       throw new ZipRefusal('it is a ZIP archive but not an Excel workbook (it has no xl/workbook.xml)');
     }
-    const kept = await verifyInflatedSizes(buffer, entries, [CONTENT_TYPES_PART]);
+    const kept = await verifyInflatedSizes(buffer, entries, [CONTENT_TYPES_PART, WORKBOOK_PART, WORKBOOK_RELATIONSHIPS_PART]);
     const contentTypes = kept.get(CONTENT_TYPES_PART)?.toString('utf8') ?? '';
     if (contentTypes.includes(MACRO_WORKBOOK_CONTENT_TYPE)) throw new ZipRefusal('it is a macro-enabled workbook; save it as a plain .xlsx workbook');
     if (!contentTypes.includes(WORKBOOK_CONTENT_TYPE)) throw new ZipRefusal('it is a ZIP package but not an .xlsx workbook');
+    return workbookSheetNames(kept.get(WORKBOOK_PART)?.toString('utf8') ?? '', kept.get(WORKBOOK_RELATIONSHIPS_PART)?.toString('utf8') ?? '');
   } catch (error) {
     if (error instanceof ZipRefusal) throw refuse(error.message);
     throw error;

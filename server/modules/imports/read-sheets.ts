@@ -26,8 +26,11 @@ export interface SheetSurvey {
   rowCount: number;
 }
 
-/** What the streaming reader needs for dates: number formats (styles), shared strings; nothing else. */
-const READER_OPTIONS = { worksheets: 'emit', sharedStrings: 'cache', styles: 'cache', hyperlinks: 'ignore', entries: 'ignore' } as const;
+/**
+ * What the streaming reader needs for dates: number formats (styles) and shared strings; entry events only to
+ * learn which part each worksheet comes from.
+ */
+const READER_OPTIONS = { worksheets: 'emit', sharedStrings: 'cache', styles: 'cache', hyperlinks: 'ignore', entries: 'emit' } as const;
 
 interface ExcelRow {
   number: number;
@@ -66,7 +69,11 @@ export async function surveySheets(upload: CheckedUpload, csvSheetName: string):
       if (current!.rowCount > maxImportRows) throw tooManyRows(current!.name);
     },
   });
-  return surveys;
+  if (upload.format === 'csv') return surveys;
+  // In the workbook's order, which is the order of the tabs, not of the parts in the file.
+  const order = [...upload.sheetNames.values()];
+  const position = (name: string) => (order.includes(name) ? order.indexOf(name) : order.length);
+  return surveys.sort((first, second) => position(first.name) - position(second.name));
 }
 
 /**
@@ -124,10 +131,16 @@ async function readRows(upload: CheckedUpload, csvSheetName: string, visitor: Ro
     return;
   }
   const reader = new ExcelJS.stream.xlsx.WorkbookReader(Readable.from(upload.buffer), READER_OPTIONS);
+  // exceljs names a worksheet only when it happened to read the workbook's parts first, so the name comes from
+  // the check of the upload, by the part number the reader announces just before it hands the worksheet over.
+  let part: number | null = null;
+  (reader as unknown as NodeJS.EventEmitter).on('entry', (entry: { type?: string; id?: string | number }) => {
+    if (entry.type === 'worksheet') part = Number(entry.id);
+  });
   try {
     for await (const worksheet of reader) {
       const sheet = worksheet as unknown as AsyncIterable<ExcelRow> & { name: string };
-      const wanted = visitor.onSheet(sheet.name);
+      const wanted = visitor.onSheet((part === null ? undefined : upload.sheetNames.get(part)) ?? sheet.name);
       let headerSeen = false;
       for await (const row of sheet) {
         if (!wanted) continue;

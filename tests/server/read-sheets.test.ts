@@ -1,0 +1,61 @@
+import ExcelJS from 'exceljs';
+import { describe, expect, it } from 'vitest';
+import { checkUpload } from '@server/modules/imports/check-upload';
+import { CellFault, readSheet, surveySheets } from '@server/modules/imports/read-sheets';
+import { workbookSheetNames } from '@server/modules/imports/workbook-sheet-names';
+import { workbookBuffer } from '@server/modules/exports/spreadsheet-writer';
+
+async function checked(buffer: Buffer) {
+  return checkUpload({ originalName: 'sheet.xlsx', buffer });
+}
+
+describe('reading workbooks', () => {
+  it('names every sheet as its tab says, in tab order, every time (not only when exceljs read the workbook part first)', async () => {
+    const rows = (count: number) => Array.from({ length: count }, (_, index) => [`v${index}`, index]);
+    // The streaming writer puts the worksheets before xl/workbook.xml in the file.
+    const upload = await checked(
+      await workbookBuffer([
+        { name: 'Measurements', headers: ['a', 'b'], rows: rows(3) },
+        { name: 'Rate points & more', headers: ['a', 'b'], rows: rows(7) },
+      ]),
+    );
+    for (let attempt = 0; attempt < 100; attempt += 1) {
+      const sheets = await surveySheets(upload, 'unused');
+      expect(sheets.map((sheet) => [sheet.name, sheet.rowCount])).toEqual([
+        ['Measurements', 3],
+        ['Rate points & more', 7],
+      ]);
+    }
+    expect((await readSheet(upload, 'Rate points & more')).rows).toHaveLength(7);
+  });
+
+  it('reads dates as dates, formula results as values, and spreadsheet errors and uncalculated formulas as faults', async () => {
+    const book = new ExcelJS.Workbook();
+    const sheet = book.addWorksheet('Data');
+    sheet.addRow(['Day', 'Sum', 'Broken', 'Pending', 'Rich']);
+    const row = sheet.addRow([new Date(Date.UTC(2026, 2, 4)), { formula: 'B3+1', result: 3 }, { error: '#DIV/0!' }, { formula: 'A1*2' }, { richText: [{ text: 'Ser' }, { text: '112Ala' }] }]);
+    row.getCell(1).numFmt = 'yyyy-mm-dd';
+    const { headers, rows } = await readSheet(await checked(Buffer.from(await book.xlsx.writeBuffer())), 'Data');
+    expect(headers).toEqual(['Day', 'Sum', 'Broken', 'Pending', 'Rich']);
+    const [cells] = rows.map((read) => read.cells);
+    expect(rows[0].rowNumber).toBe(2);
+    expect((cells[0] as Date).toISOString()).toBe('2026-03-04T00:00:00.000Z');
+    expect(cells[1]).toBe(3);
+    expect(cells[2]).toEqual(new CellFault('holds the spreadsheet error #DIV/0!'));
+    expect((cells[3] as CellFault).message).toMatch(/formula without a stored result/);
+    expect(cells[4]).toBe('Ser112Ala');
+  });
+});
+
+describe('workbookSheetNames', () => {
+  it('maps worksheet parts to names through the relationships (ECMA-376 Part 1 §18.2.19, Part 2 §9.3)', () => {
+    const workbook = `<workbook xmlns:r="http://schemas.openxmlformats.org/officeDocument/2006/relationships"><sheets>
+      <sheet name="Kinetics &amp; pH" sheetId="7" r:id="rId9"/><sheet name="Points" sheetId="2" r:id="rId2"/></sheets></workbook>`;
+    const relationships = `<Relationships><Relationship Id="rId2" Target="/xl/worksheets/sheet1.xml" Type="worksheet"/>
+      <Relationship Id="rId9" Target="worksheets/sheet4.xml" Type="worksheet"/><Relationship Id="rId3" Target="styles.xml"/></Relationships>`;
+    expect([...workbookSheetNames(workbook, relationships)]).toEqual([
+      [4, 'Kinetics & pH'],
+      [1, 'Points'],
+    ]);
+  });
+});
