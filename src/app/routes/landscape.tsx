@@ -1,4 +1,4 @@
-import { useEffect, useMemo, type ReactNode } from 'react';
+import { useEffect, useMemo, useState, type ReactNode } from 'react';
 import { useNavigate, useSearchParams } from 'react-router-dom';
 import { PageHeader } from '@/components/ui/page-header';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
@@ -43,8 +43,14 @@ export default function LandscapeRoute() {
   const campaigns = useCampaigns();
   const campaign = campaigns.data?.rows.find((row) => row.id === campaignId);
   const landscape = useCampaignLandscape(campaignId);
-  const variants = useLandscapeVariants(filters);
-  const cycles = useCampaignCycles(campaignId);
+  const filtersKey = params.toString();
+  // The variant list for the scatter plots (up to ten pages) and the cycles wait until the map is drawn,
+  // so their computing, downloads and parsing do not compete with the first chart a lead looks at.
+  const [mapDrawnFor, setMapDrawnFor] = useState<string | null>(null);
+  const cells = useMemo(() => (landscape.data ? filterCells(landscape.data, filters) : []), [landscape.data, filters]);
+  const mapSettled = mapDrawnFor === filtersKey || landscape.isError || (landscape.data !== undefined && cells.length === 0);
+  const variants = useLandscapeVariants(filters, mapSettled);
+  const cycles = useCampaignCycles(campaignId, mapSettled);
   const parent = useVariant(campaign?.parentVariantId ?? null);
   const [energyUnit] = useEnergyUnit();
 
@@ -59,7 +65,6 @@ export default function LandscapeRoute() {
   }, [campaignId, campaigns.data, params, setParams]);
 
   const openVariant = (variantId: number) => navigate(paths.variant.href(variantId));
-  const cells = useMemo(() => (landscape.data ? filterCells(landscape.data, filters) : []), [landscape.data, filters]);
   const filtered = hasVariantFilters(filters);
   const filteredIds = useMemo(() => new Set(variants.data?.rows.map((row) => row.id) ?? []), [variants.data]);
   const visibleCycles = useMemo(() => {
@@ -106,7 +111,14 @@ export default function LandscapeRoute() {
         {landscape.data && landscape.data.cells.length > 0 && cells.length === 0 && <EmptyState title="No single substitution passes these filters.">Clear a filter to see the map.</EmptyState>}
         {landscape.data && cells.length > 0 && (
           <>
-            <HeatMapChart landscape={landscape.data} cells={cells} campaignName={campaignName} parentVariantId={campaign?.parentVariantId ?? null} onOpenVariant={openVariant} />
+            <HeatMapChart
+              landscape={landscape.data}
+              cells={cells}
+              campaignName={campaignName}
+              parentVariantId={campaign?.parentVariantId ?? null}
+              onOpenVariant={openVariant}
+              onDrawn={() => setMapDrawnFor(filtersKey)}
+            />
             <p className="text-sm text-ink-500">
               {cells.length} of {landscape.data.counts.singleVariants} single substitutions shown{filtered ? ' (filtered)' : ''}; {cells.filter((cell) => cell.log10FoldChange !== null).length} compared with the parent; {landscape.data.counts.catalyticPositions} catalytic positions annotated.
             </p>

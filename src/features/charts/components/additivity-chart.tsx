@@ -3,6 +3,7 @@ import type { EnergyUnit } from '@shared/schemas/auth';
 import type { CycleDto } from '@shared/schemas/comparison';
 import { energyIn } from '@/lib/format';
 import { additivitySpec } from '../specs/additivity-spec';
+import { counted } from '../specs/spec-parts';
 import { VegaChart } from './vega-chart';
 
 export interface AdditivityChartProps {
@@ -39,7 +40,7 @@ export function AdditivityChart({ cycles, unit, campaignName, onOpenVariant }: A
     () =>
       additivitySpec({
         title: 'Additivity of combinations',
-        subtitle: `${campaignName}: ΔΔG‡ from kcat/Km for ${points.length} double-mutant cycles; distance from the line is the coupling energy.`,
+        subtitle: `${campaignName}: ΔΔG‡ from kcat/Km, ${counted(points.length, 'double-mutant cycle')}.`,
         unit,
         points,
       }),
@@ -49,7 +50,7 @@ export function AdditivityChart({ cycles, unit, campaignName, onOpenVariant }: A
     <VegaChart
       spec={spec}
       title="Additivity plot"
-      description={`Observed against predicted ΔΔG‡ in ${unit} for ${points.length} combinations, with the y = x line of additivity.`}
+      description={`Observed against predicted ΔΔG‡ in ${unit} for ${counted(points.length, 'combination')}, with the y = x line of additivity.`}
       fileName={`${campaignName}-additivity`}
       heightClass="min-h-96"
       onDatumClick={(datum) => {

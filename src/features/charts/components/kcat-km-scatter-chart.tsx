@@ -1,6 +1,7 @@
 import { useMemo } from 'react';
 import type { VariantListRowDto } from '@shared/schemas/variant';
 import { kcatKmScatterSpec } from '../specs/kcat-km-scatter-spec';
+import { counted } from '../specs/spec-parts';
 import { VegaChart } from './vega-chart';
 
 export interface KcatKmScatterChartProps {
@@ -28,14 +29,14 @@ export function KcatKmScatterChart({ variants, campaignName, note, onOpenVariant
     [variants],
   );
   const spec = useMemo(
-    () => kcatKmScatterSpec({ title: 'kcat against Km', subtitle: `${campaignName}: ${points.length} variants${note ? `; ${note}` : ''}. Dashed lines: equal kcat/Km.`, points }),
+    () => kcatKmScatterSpec({ title: 'kcat against Km', subtitle: `${campaignName}: ${counted(points.length, 'variant')}${note ? `; ${note}` : ''}. Dashed lines: equal kcat/Km.`, points }),
     [points, campaignName, note],
   );
   return (
     <VegaChart
       spec={spec}
       title="kcat against Km scatter plot"
-      description={`kcat against Km on logarithmic axes for ${points.length} variants, with lines of equal kcat/Km and the region near the diffusion limit shaded.`}
+      description={`kcat against Km on logarithmic axes for ${counted(points.length, 'variant')}, with lines of equal kcat/Km and the region near the diffusion limit shaded.`}
       fileName={`${campaignName}-kcat-km`}
       heightClass="min-h-96"
       onDatumClick={(datum) => {

@@ -1,6 +1,7 @@
 import { useMemo } from 'react';
 import type { VariantListRowDto } from '@shared/schemas/variant';
 import { phOptimumShiftSpec } from '../specs/ph-optimum-shift-spec';
+import { counted } from '../specs/spec-parts';
 import { VegaChart } from './vega-chart';
 
 export interface PhOptimumShiftChartProps {
@@ -30,7 +31,7 @@ export function PhOptimumShiftChart({ variants, parentPhOptimum, targetPh, campa
     () =>
       phOptimumShiftSpec({
         title: 'pH-optimum shift from the parent',
-        subtitle: `${campaignName}: parent optimum pH ${parentPhOptimum.toFixed(2)}; ${shown < total ? `the ${shown} largest of ${total} shifts` : `${shown} variants with a pH profile`}.`,
+        subtitle: `${campaignName}: parent optimum pH ${parentPhOptimum.toFixed(2)}; ${shown < total ? `the ${shown} largest of ${total} shifts` : `${counted(shown, 'variant')} with a pH profile`}.`,
         parentPhOptimum,
         targetPh,
         points,
@@ -41,7 +42,7 @@ export function PhOptimumShiftChart({ variants, parentPhOptimum, targetPh, campa
     <VegaChart
       spec={spec}
       title="pH-optimum shift chart"
-      description={`Shift of the pH optimum from the parent's pH ${parentPhOptimum.toFixed(2)} for ${shown} variants.`}
+      description={`Shift of the pH optimum from the parent's pH ${parentPhOptimum.toFixed(2)} for ${counted(shown, 'variant')}.`}
       fileName={`${campaignName}-ph-optimum-shift`}
       heightClass="min-h-60"
       onDatumClick={(datum) => {

@@ -8,6 +8,7 @@ import type { PhProfileDto } from '@shared/schemas/ph-profile';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { formatKcat, formatKm, formatPh } from '@/lib/format';
 import { useAssay } from '../api/get-assay';
+import { useAssayFiles } from '../api/get-assay-files';
 import { usePhProfiles } from '../api/get-ph-profiles';
 import { useVariantAssays } from '../api/get-variant-assays';
 import { useVariantComparison } from '../api/get-variant-comparison';
@@ -116,7 +117,36 @@ function StoredAssayCharts({ assayId, variantLabel }: { assayId: number; variant
   const stored = current
     ? `Stored: kcat ${formatKcat(current.kcat?.value)}, Km ${formatKm(current.km?.value)} (${current.reviewState}); assay of ${assay.data.conditions.assayDate}.`
     : `Assay of ${assay.data.conditions.assayDate}.`;
-  return <AssayFitCharts points={points} fit={fit} curveLabel={MODEL_LABELS[model]} sUnit={assay.data.sUnit ?? ''} vUnit={assay.data.vUnit ?? ''} subject={variantLabel} subtitle={stored} />;
+  return (
+    <div className="space-y-2">
+      <AssayFitCharts points={points} fit={fit} curveLabel={MODEL_LABELS[model]} sUnit={assay.data.sUnit ?? ''} vUnit={assay.data.vUnit ?? ''} subject={variantLabel} subtitle={stored} />
+      <AssayFiles assayId={assayId} />
+    </div>
+  );
+}
+
+/** The raw instrument files behind an assay, as downloads with their SHA-256. */
+function AssayFiles({ assayId }: { assayId: number }) {
+  const files = useAssayFiles(assayId);
+  if (files.isError) return <ErrorState error={files.error} onRetry={() => void files.refetch()} />;
+  if (!files.data || files.data.length === 0) return null;
+  return (
+    <div className="rounded-lg border border-paper-200 bg-white px-4 py-3 text-sm">
+      <h3 className="font-medium text-ink-700">Raw files of this assay</h3>
+      <ul className="mt-1 space-y-0.5">
+        {files.data.map((file) => (
+          <li key={file.id} className="flex flex-wrap justify-between gap-2">
+            <a href={file.contentUrl} className="font-mono text-xs text-lagoon-700 underline-offset-2 hover:underline">
+              {file.originalName}
+            </a>
+            <span className="font-mono text-xs text-ink-500" title={`SHA-256 ${file.sha256}`}>
+              {file.sizeBytes.toLocaleString('en-US')} bytes · SHA-256 {file.sha256.slice(0, 16)}…
+            </span>
+          </li>
+        ))}
+      </ul>
+    </div>
+  );
 }
 
 function StoredPhProfileChart({ profile, variantLabel }: { profile: PhProfileDto; variantLabel: string }) {

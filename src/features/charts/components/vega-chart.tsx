@@ -20,6 +20,8 @@ export interface VegaChartProps {
   /** Canvas draws thousands of marks faster; SVG is crisper for small charts. Downloads offer both either way. */
   renderer?: 'svg' | 'canvas';
   onDatumClick?: (datum: Record<string, unknown>) => void;
+  /** Told each time the chart has been drawn. */
+  onDrawn?: () => void;
   /** Name of the User Timing measure recorded per render. */
   timingName?: string;
   /** Reserve this height (Tailwind class) while the chart loads, so the page does not jump. */
@@ -35,7 +37,7 @@ const UNSAFE_FILE_CHARACTERS = /[^\p{L}\p{N}._-]+/gu;
 /**
  * A Vega-Lite chart in a card, with PNG and SVG downloads and a text description. The view itself is lazy.
  */
-export function VegaChart({ spec, datasets, title, description, fileName, renderer = 'svg', onDatumClick, timingName, heightClass = 'min-h-72', scrollable = false, children }: VegaChartProps) {
+export function VegaChart({ spec, datasets, title, description, fileName, renderer = 'svg', onDatumClick, onDrawn, timingName, heightClass = 'min-h-72', scrollable = false, children }: VegaChartProps) {
   const [view, setView] = useState<View | null>(null);
   const [error, setError] = useState<unknown>(null);
   const [attempt, setAttempt] = useState(0);
@@ -78,7 +80,7 @@ export function VegaChart({ spec, datasets, title, description, fileName, render
         ) : (
           <ChartBoundary key={attempt} onError={setError}>
             <Suspense fallback={<LoadingState label="Drawing the chart…" />}>
-              <VegaView spec={spec} datasets={datasets} renderer={renderer} onView={setView} onDatumClick={onDatumClick} timingName={timingName} onError={setError} />
+              <VegaView spec={spec} datasets={datasets} renderer={renderer} onView={setView} onDatumClick={onDatumClick} onDrawn={onDrawn} timingName={timingName} onError={setError} />
             </Suspense>
           </ChartBoundary>
         )}

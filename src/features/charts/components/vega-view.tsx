@@ -15,6 +15,7 @@ export interface VegaViewProps {
   onView: (view: View | null) => void;
   /** Called with the data row under the pointer when a mark is clicked. */
   onDatumClick?: (datum: Record<string, unknown>) => void;
+  onDrawn?: () => void;
   /** Name of the performance measure recorded for each render (User Timing API). */
   timingName?: string;
   onError: (error: unknown) => void;
@@ -24,7 +25,7 @@ export interface VegaViewProps {
  * The part of a chart that needs Vega, loaded as its own chunk. Expressions run through vega-interpreter
  * (`ast: true`), so the Content-Security-Policy needs no 'unsafe-eval'.
  */
-export default function VegaView({ spec, datasets, renderer, onView, onDatumClick, timingName, onError }: VegaViewProps) {
+export default function VegaView({ spec, datasets, renderer, onView, onDatumClick, onDrawn, timingName, onError }: VegaViewProps) {
   // The spec as last embedded: a rebuilt but equal spec keeps the drawn view (only its data change).
   const specText = JSON.stringify(spec);
   const [embedded, setEmbedded] = useState({ text: specText, spec });
@@ -32,10 +33,11 @@ export default function VegaView({ spec, datasets, renderer, onView, onDatumClic
 
   const latestData = useRef(datasets);
   const shownData = useRef<VegaViewProps['datasets']>(undefined);
-  const [view, setView] = useState<View | null>(null);
-  const handlers = useRef({ onDatumClick, onView, onError });
+  // The drawn view with the spec it was drawn from: data go only to a view of the current spec.
+  const [drawn, setDrawn] = useState<{ view: View; spec: unknown } | null>(null);
+  const handlers = useRef({ onDatumClick, onView, onError, onDrawn });
   useLayoutEffect(() => {
-    handlers.current = { onDatumClick, onView, onError };
+    handlers.current = { onDatumClick, onView, onError, onDrawn };
     latestData.current = datasets;
   });
 
@@ -63,16 +65,15 @@ export default function VegaView({ spec, datasets, renderer, onView, onDatumClic
   // the old view is finalized by the embed, so downloads wait for the new one.
   useLayoutEffect(() => {
     startedAt.current = performance.now();
-    setView(null);
     handlers.current.onView(null);
   }, [embedded.spec]);
 
   useEffect(() => {
-    if (!view || !datasets || shownData.current === datasets) return;
+    if (!drawn || drawn.spec !== embedded.spec || !datasets || shownData.current === datasets) return;
     shownData.current = datasets;
-    for (const [name, rows] of Object.entries(datasets)) view.data(name, [...rows]);
-    view.runAsync().catch((error: unknown) => handlers.current.onError(error));
-  }, [view, datasets]);
+    for (const [name, rows] of Object.entries(datasets)) drawn.view.data(name, [...rows]);
+    drawn.view.runAsync().catch((error: unknown) => handlers.current.onError(error));
+  }, [drawn, embedded.spec, datasets]);
 
   const handleEmbed = (result: Result) => {
     if (timingName) performance.measure(timingName, { start: startedAt.current, end: performance.now() });
@@ -80,8 +81,9 @@ export default function VegaView({ spec, datasets, renderer, onView, onDatumClic
       const datum = (item as { datum?: unknown } | null | undefined)?.datum;
       if (datum && typeof datum === 'object') handlers.current.onDatumClick?.(datum as Record<string, unknown>);
     });
-    setView(result.view);
+    setDrawn({ view: result.view, spec: result.spec });
     handlers.current.onView(result.view);
+    handlers.current.onDrawn?.();
   };
 
   return <VegaEmbed spec={embedded.spec} options={options} onEmbed={handleEmbed} onError={onError} className="w-full" />;

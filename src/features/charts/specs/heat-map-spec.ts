@@ -1,6 +1,6 @@
 import type { TopLevelSpec } from 'vega-lite';
 import { chartColors, divergingRange, roleColors } from '../chart-theme';
-import { VEGA_LITE_SCHEMA } from './spec-parts';
+import { VEGA_LITE_SCHEMA, type ChartWithData } from './spec-parts';
 
 /** One single-substitution variant in the map. */
 export interface HeatMapCell {
@@ -74,9 +74,10 @@ export function colourSpan(values: readonly number[]): number {
  * by role.
  *
  * @param input amino acids, positions, cells and the parent's id
- * @returns a Vega-Lite spec
+ * @returns a Vega-Lite spec with datasets `catalytic`, `notCompared`, `measured` and `parentResidues`, kept out
+ *   of the spec so that ten thousand rows are not copied through the Vega-Lite compiler
  */
-export function heatMapSpec(input: HeatMapSpecInput): TopLevelSpec {
+export function heatMapSpec(input: HeatMapSpecInput): ChartWithData {
   const siteOf = new Map(input.positions.map((position) => [position.position, `${position.parentResidue}${position.position}`]));
   const sites = input.positions.map((position) => siteOf.get(position.position)!);
   const step = Math.max(MIN_CELL_PX, Math.min(MAX_CELL_PX, Math.floor(TARGET_WIDTH_PX / Math.max(sites.length, 1))));
@@ -143,16 +144,19 @@ export function heatMapSpec(input: HeatMapSpecInput): TopLevelSpec {
   // The roles' legend above the strip, the map's below the map, so the strip sits right on the map.
   const legend = { orient: 'bottom', direction: 'horizontal' } as const;
 
-  return {
+  const spec: TopLevelSpec = {
     $schema: VEGA_LITE_SCHEMA,
-    title: input.subtitle ? { text: input.title, subtitle: input.subtitle } : { text: input.title },
+    title: {
+      text: input.title,
+      subtitle: [...(input.subtitle ? [input.subtitle] : []), ...(clamped ? [`Colours stop at ±${span} (${Number((10 ** span).toPrecision(2))}-fold); larger effects take the end colours.`] : [])],
+    },
     description: `Heat map of log10 fold change in kcat/Km for ${input.cells.length} single-substitution variants at ${sites.length} positions; ${measured.length} compared with the parent.`,
     spacing: 4,
     vconcat: [
       {
         width: { step },
         height: 12,
-        data: { values: catalytic },
+        data: { name: 'catalytic' },
         mark: { type: 'rect' },
         encoding: {
           x: { ...x, axis: null },
@@ -175,7 +179,7 @@ export function heatMapSpec(input: HeatMapSpecInput): TopLevelSpec {
         view: { fill: chartColors.notMade, stroke: chartColors.frame },
         layer: [
           {
-            data: { values: notCompared },
+            data: { name: 'notCompared' },
             mark: { type: 'rect', cursor: 'pointer', invalid: null, aria: false, width: step, height: rowStep },
             encoding: {
               x,
@@ -191,7 +195,7 @@ export function heatMapSpec(input: HeatMapSpecInput): TopLevelSpec {
             },
           },
           {
-            data: { values: measured },
+            data: { name: 'measured' },
             mark: { type: 'rect', cursor: 'pointer', invalid: null, aria: false, width: step, height: rowStep },
             encoding: {
               x,
@@ -199,7 +203,7 @@ export function heatMapSpec(input: HeatMapSpecInput): TopLevelSpec {
               color: {
                 field: 'log10FoldChange',
                 type: 'quantitative',
-                title: clamped ? `log₁₀ fold change in kcat/Km (0 = parent; beyond ±${span} drawn at the end colour)` : 'log₁₀ fold change in kcat/Km (0 = parent)',
+                title: 'log₁₀ fold change in kcat/Km (0 = parent)',
                 scale: { type: 'linear', domain: [-span, span], domainMid: 0, range: divergingRange, clamp: true },
                 legend: { ...legend, gradientLength: 220, titleLimit: 320 },
               },
@@ -207,7 +211,7 @@ export function heatMapSpec(input: HeatMapSpecInput): TopLevelSpec {
             },
           },
           {
-            data: { values: parentResidues },
+            data: { name: 'parentResidues' },
             mark: { type: 'point', filled: true, size: Math.max(6, Math.min(30, step * 1.2)), cursor: 'pointer', invalid: null, aria: false },
             encoding: {
               x,
@@ -222,4 +226,5 @@ export function heatMapSpec(input: HeatMapSpecInput): TopLevelSpec {
     ],
     resolve: { scale: { color: 'independent' }, legend: { color: 'independent' } },
   };
+  return { spec, datasets: { catalytic, notCompared, measured, parentResidues } };
 }

@@ -117,5 +117,6 @@ export function michaelisMentenSpec(input: MichaelisMentenSpecInput): ChartWithD
       },
     ],
   };
-  return { spec, datasets: { band, curve, points } };
+  // Only the datasets the spec names: a drawn view refuses rows for a dataset it does not have.
+  return { spec, datasets: { points, ...(bandLayers.length > 0 ? { band } : {}), ...(curveLayers.length > 0 ? { curve } : {}) } };
 }

@@ -43,6 +43,8 @@ export function parentComparisonSpec(input: ParentComparisonSpecInput): TopLevel
   const who = [input.variantLabel, input.parentLabel];
   const color = { field: 'who', type: 'nominal', title: null, scale: { domain: who, range: [chartColors.variant, chartColors.parent] } } as const;
   const shape = { field: 'who', type: 'nominal', title: null, scale: { domain: who, range: ['circle', 'square'] } } as const;
+  // Few ticks on a log axis: its minor ticks crowd the labels of a short panel.
+  const axis = { tickCount: 4, format: '~g' } as const;
   const panels = input.parameters.map((parameter): NonNormalizedSpec => {
     const title = `${parameter.name} (${parameter.unit})`;
     const rows = (
@@ -68,7 +70,7 @@ export function parentComparisonSpec(input: ParentComparisonSpecInput): TopLevel
           mark: { type: 'rule' as const, strokeWidth: 2 },
           encoding: {
             y: { field: 'who', type: 'nominal', title: null, sort: who },
-            x: { field: 'low', type: 'quantitative', title, scale: { type: 'log' } },
+            x: { field: 'low', type: 'quantitative', title, scale: { type: 'log' }, axis },
             x2: { field: 'high' },
             color,
           },
@@ -77,7 +79,7 @@ export function parentComparisonSpec(input: ParentComparisonSpecInput): TopLevel
           mark: { type: 'point' as const, filled: true, size: 90, opacity: 1 },
           encoding: {
             y: { field: 'who', type: 'nominal', title: null, sort: who },
-            x: { field: 'value', type: 'quantitative', title, scale: { type: 'log' } },
+            x: { field: 'value', type: 'quantitative', title, scale: { type: 'log' }, axis },
             color,
             shape,
             tooltip: [

@@ -146,5 +146,9 @@ export function phProfileSpec(input: PhProfileSpecInput): ChartWithData {
       },
     ],
   };
-  return { spec, datasets: { band, curve, markers, points } };
+  // Only the datasets the spec names: a drawn view refuses rows for a dataset it does not have.
+  return {
+    spec,
+    datasets: { points, ...(bandLayers.length > 0 ? { band } : {}), ...(curveLayers.length > 0 ? { curve } : {}), ...(markerLayers.length > 0 ? { markers } : {}) },
+  };
 }

@@ -4,8 +4,11 @@ import { chartColors, seriesStyle } from '../chart-theme';
 /** Vega-Lite's schema; every spec names it so exported sources are self-describing. */
 export const VEGA_LITE_SCHEMA = 'https://vega.github.io/schema/vega-lite/v6.json';
 
-/** The × mark of excluded points, as an SVG path in Vega's unit square. */
-export const EXCLUDED_SHAPE = 'M-1,-1L1,1M-1,1L1,-1';
+/**
+ * The × mark of excluded points: a filled outline (SVG path in Vega's unit square), because the points are
+ * drawn filled and a stroked × would not show.
+ */
+export const EXCLUDED_SHAPE = 'M-1,-0.6L-0.6,-1L0,-0.4L0.6,-1L1,-0.6L0.4,0L1,0.6L0.6,1L0,0.4L-0.6,1L-1,0.6L-0.4,0Z';
 
 /** Series name of excluded points. */
 export const EXCLUDED_LABEL = 'Excluded';
@@ -53,6 +56,11 @@ export const excludedSeries = { label: EXCLUDED_LABEL, color: chartColors.exclud
 /** `[S] (mM)`: a quantity with its unit, as axis titles and tooltips write it. */
 export function withUnit(quantity: string, unit: string): string {
   return unit ? `${quantity} (${unit})` : quantity;
+}
+
+/** `1 variant`, `2 variants`: a count with its noun. */
+export function counted(count: number, noun: string): string {
+  return `${count.toLocaleString('en-US')} ${noun}${count === 1 ? '' : 's'}`;
 }
 
 /** `n` evenly spaced values from `low` to `high`, both included. */

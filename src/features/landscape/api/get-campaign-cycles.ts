@@ -7,5 +7,6 @@ export const getCampaignCycles = (campaignId: number) => api.get<CampaignCyclesD
 export const getCampaignCyclesQueryOptions = (campaignId: number) =>
   queryOptions({ queryKey: ['campaigns', campaignId, 'cycles'], queryFn: () => getCampaignCycles(campaignId) });
 
-export const useCampaignCycles = (campaignId: number | undefined) =>
-  useQuery({ ...getCampaignCyclesQueryOptions(campaignId ?? 0), enabled: campaignId !== undefined });
+/** `enabled` lets the page hold the cycles back until its first chart is drawn. */
+export const useCampaignCycles = (campaignId: number | undefined, enabled = true) =>
+  useQuery({ ...getCampaignCyclesQueryOptions(campaignId ?? 0), enabled: enabled && campaignId !== undefined });

@@ -38,4 +38,6 @@ export async function getLandscapeVariants(filters: LandscapeFilters): Promise<L
 export const getLandscapeVariantsQueryOptions = (filters: LandscapeFilters) =>
   queryOptions({ queryKey: ['variants', 'landscape', filters], queryFn: () => getLandscapeVariants(filters) });
 
-export const useLandscapeVariants = (filters: LandscapeFilters) => useQuery({ ...getLandscapeVariantsQueryOptions(filters), enabled: filters.campaignId !== undefined });
+/** `enabled` lets the page hold this heavy list back until its first chart is drawn. */
+export const useLandscapeVariants = (filters: LandscapeFilters, enabled = true) =>
+  useQuery({ ...getLandscapeVariantsQueryOptions(filters), enabled: enabled && filters.campaignId !== undefined });

@@ -4,6 +4,9 @@ import type { CampaignCyclesDto } from '@shared/schemas/comparison';
 import { paths } from '@/config/paths';
 import { energyIn } from '@/lib/format';
 
+/** Rows listed; the plot shows every cycle, the table the strongest couplings. */
+const MAX_ROWS = 25;
+
 /** `−2.53 ± 0.18` in the chosen unit; the unit is in the column header. */
 function energyText(kJPerMol: number, seKJPerMol: number, unit: EnergyUnit): string {
   return `${energyIn(kJPerMol, unit).toFixed(2).replace(/^-/, '\u2212')} ± ${energyIn(seKJPerMol, unit).toFixed(2)}`;
@@ -11,9 +14,10 @@ function energyText(kJPerMol: number, seKJPerMol: number, unit: EnergyUnit): str
 
 /** The double-mutant cycles behind the additivity plot, largest coupling first, and the combinations without one. */
 export function CouplingTable({ cycles, unit }: { cycles: CampaignCyclesDto; unit: EnergyUnit }) {
-  const rows = cycles.cycles
+  const complete = cycles.cycles
     .filter((cycle) => cycle.kcatOverKm !== null)
     .sort((first, second) => Math.abs(second.kcatOverKm!.coupling.kJPerMol.value) - Math.abs(first.kcatOverKm!.coupling.kJPerMol.value));
+  const rows = complete.slice(0, MAX_ROWS);
   return (
     <div className="space-y-2">
       <table className="w-full text-sm" aria-label="Coupling energies of double-mutant cycles">
@@ -36,7 +40,7 @@ export function CouplingTable({ cycles, unit }: { cycles: CampaignCyclesDto; uni
                     {cycle.combination.label}
                   </Link>
                 </th>
-                <td className="py-1 pr-2 font-mono text-xs">
+                <td className="whitespace-nowrap py-1 pr-2 font-mono text-xs">
                   {cycle.a.label} + {cycle.b.label}
                 </td>
                 <td className="numeric whitespace-nowrap py-1 pr-2 font-mono">{energyText(energies.ddgAB.value, energies.ddgAB.se, unit)}</td>
@@ -47,16 +51,22 @@ export function CouplingTable({ cycles, unit }: { cycles: CampaignCyclesDto; uni
           })}
         </tbody>
       </table>
+      {complete.length > rows.length && (
+        <p className="text-sm text-ink-500">
+          The {rows.length} strongest couplings of {complete.length.toLocaleString('en-US')} cycles; the plot shows them all.
+        </p>
+      )}
       {cycles.unmatched.length > 0 && (
         <details className="text-sm text-ink-700">
           <summary className="cursor-pointer font-medium">{cycles.unmatched.length} combinations without a complete cycle</summary>
           <ul className="mt-1 list-disc space-y-0.5 pl-5">
-            {cycles.unmatched.map((item) => (
+            {cycles.unmatched.slice(0, MAX_ROWS).map((item) => (
               <li key={`${item.combination.id}-${item.a.id}-${item.b.id}`}>
                 <span className="font-mono">{item.combination.label}</span>: {item.reason}
               </li>
             ))}
           </ul>
+          {cycles.unmatched.length > MAX_ROWS && <p className="mt-1 text-ink-500">…and {(cycles.unmatched.length - MAX_ROWS).toLocaleString('en-US')} more.</p>}
         </details>
       )}
     </div>

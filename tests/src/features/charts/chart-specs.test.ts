@@ -174,9 +174,9 @@ describe('heat map', () => {
   });
 
   it('draws 500 positions × 19 substitutions: coloured, grey and parent cells, catalytic positions marked', async () => {
-    const spec = heatMapSpec({ title: 'Landscape', aminoAcids, positions, cells, parentVariantId: 7 });
-    const { vega } = await expectCompleteChart(spec, ['Position', 'Substituted residue']);
-    const [strip, notCompared, measured, parents] = layerValues(spec);
+    const { spec, datasets } = heatMapSpec({ title: 'Landscape', aminoAcids, positions, cells, parentVariantId: 7 });
+    const { vega } = await expectCompleteChart(spec, ['Position', 'Substituted residue'], datasets);
+    const [strip, notCompared, measured, parents] = [datasets.catalytic, datasets.notCompared, datasets.measured, datasets.parentResidues] as AnyRecord[][];
     expect(strip).toHaveLength(positions.filter((position) => position.catalyticRoles.length > 0).length);
     expect(measured).toHaveLength(cells.filter((cell) => cell.log10FoldChange !== null).length);
     expect(notCompared.every((cell) => cell.state === NOT_COMPARED_LABEL)).toBe(true);
