@@ -114,8 +114,8 @@ export function plausibilityFlags(input: PlausibilityInput): PlausibilityFlag[] 
         code: 'km-above-range',
         severity: 'warning',
         message:
-          `Km of ${scientific(km)} M is above the highest substrate concentration tested ` +
-          `(${scientific(highest)} M); Km and kcat are extrapolated`,
+          `Km of ${concentrationText(km)} is above the highest substrate concentration tested ` +
+          `(${concentrationText(highest)}); Km and kcat are extrapolated`,
       });
     }
     if (lowestPositive > SPAN_LOWER_KM_MULTIPLE * km || highest < SPAN_UPPER_KM_MULTIPLE * km) {
@@ -123,8 +123,8 @@ export function plausibilityFlags(input: PlausibilityInput): PlausibilityFlag[] 
         code: 'range-does-not-span-km',
         severity: 'warning',
         message:
-          `the substrate range tested (${scientific(lowestPositive)}–${scientific(highest)} M) does not span ` +
-          `0.2–5 × Km (${scientific(SPAN_LOWER_KM_MULTIPLE * km)}–${scientific(SPAN_UPPER_KM_MULTIPLE * km)} M), ` +
+          `the substrate range tested (${concentrationText(lowestPositive)} to ${concentrationText(highest)}) does not span ` +
+          `0.2–5 × Km (${concentrationText(SPAN_LOWER_KM_MULTIPLE * km)} to ${concentrationText(SPAN_UPPER_KM_MULTIPLE * km)}), ` +
           'so Km is poorly determined',
       });
     }
@@ -144,6 +144,26 @@ export function plausibilityFlags(input: PlausibilityInput): PlausibilityFlag[] 
   return flags;
 }
 
+const superscriptDigits: Record<string, string> = { '-': '⁻', 0: '⁰', 1: '¹', 2: '²', 3: '³', 4: '⁴', 5: '⁵', 6: '⁶', 7: '⁷', 8: '⁸', 9: '⁹' };
+
 function scientific(value: number): string {
-  return value.toExponential(2);
+  const [mantissa, exponent] = value.toExponential(2).split('e');
+  const power = String(Number(exponent)).replace(/./g, (character) => superscriptDigits[character] ?? character);
+  return `${mantissa} × 10${power}`;
+}
+
+const concentrationUnits: readonly (readonly [unit: string, molar: number])[] = [
+  ['M', 1],
+  ['mM', 1e-3],
+  ['µM', 1e-6],
+  ['nM', 1e-9],
+  ['pM', 1e-12],
+];
+
+// A concentration as a bench scientist writes it (three significant figures in the largest unit that keeps the
+// number at or above 1): messages are read next to the rate grid, where substrate is in mM or µM, not in M.
+function concentrationText(molar: number): string {
+  if (!(molar > 0)) return `${molar} M`;
+  const [unit, factor] = concentrationUnits.find(([, size]) => molar >= size * 0.9995) ?? concentrationUnits[concentrationUnits.length - 1];
+  return `${Number((molar / factor).toPrecision(3))} ${unit}`;
 }

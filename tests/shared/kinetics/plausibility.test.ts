@@ -14,7 +14,7 @@ describe('plausibilityFlags', () => {
     expect(plausibilityFlags({ kcatOverKmPerMolarSecond: { value: 3e8 } })[0]).toEqual({
       code: 'near-diffusion-limit',
       severity: 'warning',
-      message: 'kcat/Km of 3.00e+8 M⁻¹ s⁻¹ approaches the diffusion limit (10⁸–10⁹ M⁻¹ s⁻¹)',
+      message: 'kcat/Km of 3.00 × 10⁸ M⁻¹ s⁻¹ approaches the diffusion limit (10⁸–10⁹ M⁻¹ s⁻¹)',
     });
   });
 
@@ -29,6 +29,15 @@ describe('plausibilityFlags', () => {
       'km-above-range',
       'range-does-not-span-km',
     ]);
+  });
+
+  it('writes concentrations in the unit a bench scientist would, and rates in scientific notation', () => {
+    const messages = plausibilityFlags({ kmMolar: { value: 2e-3 }, substrateMolar: [2e-5, 5e-4, 1.1e-3] }).map((flag) => flag.message);
+    expect(messages).toEqual([
+      'Km of 2 mM is above the highest substrate concentration tested (1.1 mM); Km and kcat are extrapolated',
+      'the substrate range tested (20 µM to 1.1 mM) does not span 0.2–5 × Km (400 µM to 10 mM), so Km is poorly determined',
+    ]);
+    expect(plausibilityFlags({ kcatOverKmPerMolarSecond: { value: 2.5e10 } })[0].message).toContain('kcat/Km of 2.50 × 10¹⁰ M⁻¹ s⁻¹');
   });
 
   it('flags a substrate range that does not span 0.2–5 × Km, and not one that does', () => {
