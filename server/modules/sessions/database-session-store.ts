@@ -1,5 +1,6 @@
 import session from 'express-session';
 import { LessThan, type DataSource, type Repository } from 'typeorm';
+import { preparedRead } from '../../sqlite-statement';
 import { SessionRecord } from './session.entity';
 
 const defaultLifetimeMs = 7 * 24 * 60 * 60 * 1000;
@@ -8,6 +9,7 @@ const pruneIntervalMs = 15 * 60 * 1000;
 // over a week-long lifetime and would make every read request a database write.
 const touchIntervalMs = 10 * 60 * 1000;
 const maxTrackedSessions = 10_000;
+const selectSession = preparedRead<{ data: string; expiresAt: number }>(`SELECT "data", "expires_at" AS "expiresAt" FROM "sessions" WHERE "sid" = ?`);
 
 type Callback<T = void> = (error?: unknown, value?: T) => void;
 
@@ -28,15 +30,16 @@ export class DatabaseSessionStore extends session.Store {
     this.pruneTimer.unref();
   }
 
-  // Read on every signed-in request: plain SQL, because the ORM's entity building costs more than the query.
+  // Read on every signed-in request, so through a prepared statement rather than the ORM.
   override get = (sid: string, callback: Callback<session.SessionData | null>) => {
-    this.dataSource
-      .query(`SELECT "data", "expires_at" AS "expiresAt" FROM "sessions" WHERE "sid" = ?`, [sid])
-      .then(([record]: { data: string; expiresAt: number }[]) => {
-        if (!record || record.expiresAt <= Date.now()) return callback(undefined, null);
-        callback(undefined, JSON.parse(record.data) as session.SessionData);
-      })
-      .catch((error: unknown) => callback(error));
+    let record: { data: string; expiresAt: number } | undefined;
+    try {
+      record = selectSession(this.dataSource, sid);
+    } catch (error) {
+      return callback(error);
+    }
+    if (!record || record.expiresAt <= Date.now()) return callback(undefined, null);
+    callback(undefined, JSON.parse(record.data) as session.SessionData);
   };
 
   override set = (sid: string, data: session.SessionData, callback?: Callback) => {

@@ -1,6 +1,7 @@
 import type { DataSource } from 'typeorm';
 import type { CreateUserInput, SessionUserDto, UpdateUserInput, UserDto, UserPreferences } from '@shared/schemas/auth';
 import { badRequest, conflict, notFound, staleVersion } from '../../http/errors';
+import { preparedRead } from '../../sqlite-statement';
 import { hashPassword, verifyPassword } from './password';
 import { User } from './user.entity';
 
@@ -49,18 +50,16 @@ export async function recordSignIn(dataSource: DataSource, userId: number): Prom
   await dataSource.query(`UPDATE "users" SET "last_sign_in_at" = ? WHERE "id" = ?`, [new Date().toISOString(), userId]);
 }
 
+const selectActiveUser = preparedRead<{ id: number; email: string; name: string; role: SessionUserDto['role']; preferences: string }>(
+  `SELECT "id", "email", "name", "role", "preferences" FROM "users" WHERE "id" = ? AND "active" = 1`,
+);
+
 /**
  * The signed-in user for a session, or null when the account is gone or deactivated. Runs on every
- * signed-in request, so it is plain SQL rather than an entity load.
+ * signed-in request, so it is a prepared statement rather than an entity load.
  */
 export async function findActiveSessionUser(dataSource: DataSource, id: number): Promise<SessionUserDto | null> {
-  const [row] = (await dataSource.query(`SELECT "id", "email", "name", "role", "preferences" FROM "users" WHERE "id" = ? AND "active" = 1`, [id])) as {
-    id: number;
-    email: string;
-    name: string;
-    role: SessionUserDto['role'];
-    preferences: string;
-  }[];
+  const row = selectActiveUser(dataSource, id);
   return row ? { id: row.id, email: row.email, name: row.name, role: row.role, preferences: JSON.parse(row.preferences) as UserPreferences } : null;
 }
 

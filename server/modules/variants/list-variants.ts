@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import type { DataSource, EntityManager } from 'typeorm';
 import type { CatalyticRole } from '@shared/schemas/enzyme';
 import {
@@ -82,16 +83,26 @@ export async function listVariants(dataSource: DataSource, query: ListVariantsQu
   return remembered(pageCaches, dataSource, JSON.stringify(query), () => readVariantPage(dataSource, query));
 }
 
+/** A list page ready to send: its JSON bytes and their entity tag. */
+export interface VariantListResponse {
+  body: Buffer;
+  etag: string;
+}
+
 /**
- * The same page serialised as JSON, as the list route sends it; remembered like the page itself, since
- * turning 50–500 rows into text costs more than finding them in a warm cache.
+ * The same page serialised as JSON, as the list route sends it, with an entity tag; remembered like the
+ * page itself, since turning 50–500 rows into bytes and hashing them costs more than finding them in a
+ * warm cache.
  *
  * @param dataSource the application's data source
  * @param query the parsed list query
- * @returns the JSON text of `{ rows, total, page, pageSize }`
+ * @returns the JSON bytes of `{ rows, total, page, pageSize }` and a strong ETag of them
  */
-export async function listVariantsJson(dataSource: DataSource, query: ListVariantsQuery): Promise<string> {
-  return remembered(jsonCaches, dataSource, JSON.stringify(query), async () => JSON.stringify(await listVariants(dataSource, query)));
+export async function listVariantsResponse(dataSource: DataSource, query: ListVariantsQuery): Promise<VariantListResponse> {
+  return remembered(responseCaches, dataSource, JSON.stringify(query), async () => {
+    const body = Buffer.from(JSON.stringify(await listVariants(dataSource, query)));
+    return { body, etag: `"${createHash('sha1').update(body).digest('base64url')}"` };
+  });
 }
 
 async function readVariantPage(dataSource: DataSource, query: ListVariantsQuery): Promise<VariantListDto> {
@@ -140,7 +151,7 @@ interface RevisionCache<T> {
 const cacheSize = 500;
 const countCaches = new WeakMap<DataSource, RevisionCache<number>>();
 const pageCaches = new WeakMap<DataSource, RevisionCache<VariantListDto>>();
-const jsonCaches = new WeakMap<DataSource, RevisionCache<string>>();
+const responseCaches = new WeakMap<DataSource, RevisionCache<VariantListResponse>>();
 
 /**
  * A read result remembered until the next write on the data source (least recently used first out).

@@ -4,7 +4,7 @@ import { createVariantInput, listVariantsQuery, updateVariantInput, type ListVar
 import { requirePermission } from '../../http/auth';
 import { parseId } from '../../http/params';
 import { validateBody, validateQuery } from '../../http/validate';
-import { listVariantsJson } from './list-variants';
+import { listVariantsResponse } from './list-variants';
 import { createVariant, getVariant, updateVariant } from './variants.service';
 
 /** `/api/variants`: the registry list, one variant, registration and edits. */
@@ -12,7 +12,9 @@ export function variantsRouter(dataSource: DataSource): Router {
   const router = Router();
 
   router.get('/', requirePermission('read'), validateQuery(listVariantsQuery), async (_req, res) => {
-    res.type('application/json').send(await listVariantsJson(dataSource, res.locals.query as ListVariantsQuery));
+    const { body, etag } = await listVariantsResponse(dataSource, res.locals.query as ListVariantsQuery);
+    // With the tag set, Express answers a matching If-None-Match with 304 and does not hash the body again.
+    res.type('application/json').set('ETag', etag).send(body);
   });
 
   router.post('/', requirePermission('variants:write'), validateBody(createVariantInput), async (req, res) => {
