@@ -1,5 +1,6 @@
 import { deltaDeltaGActivation } from '../kinetics/delta-delta-g';
 import type { FreeEnergyDifference } from '../kinetics/types';
+import { ZERO_CELSIUS_KELVIN } from '../kinetics/units';
 import { combineInverseVariance, type CombinedEstimate, type ValueWithError } from './combine-inverse-variance';
 import {
   conditionsMatch,
@@ -9,9 +10,6 @@ import {
   type AssayConditions,
 } from './conditions-match';
 import { groupByConditions } from './group-by-conditions';
-
-/** 0 °C in kelvin, for messages in °C. */
-const ZERO_CELSIUS_KELVIN = 273.15;
 
 /** One measurement as the comparison sees it: its conditions and rate constants in SI-coherent units. */
 export type ComparableMeasurement = AssayConditions & {

@@ -6,6 +6,9 @@ export const GAS_CONSTANT = 8.31446261815324;
 /** Joules in one thermochemical calorie, exact by definition (the calorie of kcal/mol in biochemistry). */
 export const JOULES_PER_CALORIE = 4.184;
 
+/** 0 °C in kelvin, exact by the definition of the Celsius scale: t/°C = T/K − 273.15 (SI Brochure, 9th ed., 2019, section 2.3.1). */
+export const ZERO_CELSIUS_KELVIN = 273.15;
+
 /** Concentration units; µ is U+00B5 MICRO SIGN. */
 export type ConcentrationUnit = 'M' | 'mM' | 'µM' | 'nM';
 /** First-order rate-constant units (kcat, v₀/[E]). */

@@ -1,4 +1,5 @@
 import type { EntityManager } from 'typeorm';
+import { ZERO_CELSIUS_KELVIN } from '@shared/kinetics/units';
 import { canonicalConcentrationUnit, fromMolar, toMolar, type AssayConditionsDto, type ConcentrationUnitInput, type CreateAssayInput } from '@shared/schemas/assay';
 import { badRequest } from '../../http/errors';
 import { Campaign } from '../campaigns/campaign.entity';
@@ -6,8 +7,8 @@ import { Enzyme } from '../enzymes/enzyme.entity';
 import { Variant } from '../variants/variant.entity';
 import type { Assay } from './assay.entity';
 
-/** 0 °C in kelvin: the API speaks °C, the database K. */
-export const ZERO_CELSIUS_KELVIN = 273.15;
+// The API speaks °C, the database K; the modules converting between them import the offset from here.
+export { ZERO_CELSIUS_KELVIN };
 
 /** Cofactors that are metal ions: for these enzymes the metal salt is a required reporting item. */
 const METAL_COFACTORS: readonly string[] = ['Zn2+', 'Mg2+', 'Mn2+', 'Fe2+', 'Cu2+'];

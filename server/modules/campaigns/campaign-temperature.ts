@@ -1,5 +1,4 @@
-// t/°C = T/K − 273.15, by the definition of the Celsius scale (SI Brochure, 9th ed., 2019, section 2.3.1).
-const kelvinAtZeroCelsius = 273.15;
+import { ZERO_CELSIUS_KELVIN } from '@shared/kinetics/units';
 
 /**
  * Converts a temperature from the API (°C) to the stored unit (K).
@@ -9,7 +8,7 @@ const kelvinAtZeroCelsius = 273.15;
  * @example kelvinFromCelsius(25) // 298.15
  */
 export function kelvinFromCelsius(temperatureCelsius: number): number {
-  return temperatureCelsius + kelvinAtZeroCelsius;
+  return temperatureCelsius + ZERO_CELSIUS_KELVIN;
 }
 
 /**
@@ -21,5 +20,5 @@ export function kelvinFromCelsius(temperatureCelsius: number): number {
  * @example celsiusFromKelvin(310.15) // 37
  */
 export function celsiusFromKelvin(temperatureKelvin: number): number {
-  return Math.round((temperatureKelvin - kelvinAtZeroCelsius) * 1e6) / 1e6;
+  return Math.round((temperatureKelvin - ZERO_CELSIUS_KELVIN) * 1e6) / 1e6;
 }

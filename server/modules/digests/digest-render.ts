@@ -1,8 +1,9 @@
+import { formatEnergy, formatEnergyFigures, formatFoldChange, formatKcatOverKm } from '@shared/format/numbers';
 import { digestFlagLabels, type DigestContentDto, type DigestMoverDto, type DigestRankedVariantDto } from '@shared/schemas/digest';
 import { escapeHtml } from '../mail/escape-html';
 import { mailButton, mailColors, mailParagraph, renderMailHtml } from '../mail/mail-layout';
 import { formatMailDate, formatMailDateTime } from '../mail/mail-options';
-import { formatEnergy, formatFoldChange, formatKcatOverKm, formatReviewCounts } from './digest-format';
+import { formatReviewCounts } from './digest-format';
 
 /** Who the rendering is for. */
 export interface DigestRecipient {
@@ -96,7 +97,7 @@ function renderText(content: DigestContentDto, publicUrl: string, recipient: Dig
     const rows = content.ranking.map((entry) => [
       String(entry.rank),
       entry.label,
-      `${formatEnergy(entry.ddgKjPerMol.value, entry.ddgKjPerMol.se)}${entry.clearOfParent ? '' : ' *'}`,
+      `${formatEnergyFigures(entry.ddgKjPerMol.value, entry.ddgKjPerMol.se, 'kJ/mol')}${entry.clearOfParent ? '' : ' *'}`,
       entry.foldChange ? formatFoldChange(entry.foldChange.value) : '—',
       String(entry.n),
       formatReviewCounts(entry.reviewStates),
@@ -161,7 +162,7 @@ function variantLink(publicUrl: string, variantId: number, label: string): strin
 }
 
 function rankingRow(entry: DigestRankedVariantDto, publicUrl: string, movement: Map<number, string>, withMovement: boolean): string {
-  const energy = `${escapeHtml(formatEnergy(entry.ddgKjPerMol.value, entry.ddgKjPerMol.se))}${entry.clearOfParent ? '' : ' <span title="within error of the parent">*</span>'}`;
+  const energy = `${escapeHtml(formatEnergyFigures(entry.ddgKjPerMol.value, entry.ddgKjPerMol.se, 'kJ/mol'))}${entry.clearOfParent ? '' : ' <span title="within error of the parent">*</span>'}`;
   const conditions = `${escapeHtml(entry.substrate)}, ${entry.temperatureC} °C, pH ${entry.ph}`;
   const flags = entry.flags.length === 0 ? '' : `<div style="font-size:12px;color:${mailColors.danger}">⚠ ${escapeHtml(entry.flags.map(flagLabel).join('; '))}</div>`;
   const notes = entry.notes ? `<div style="font-size:12px;color:${mailColors.muted}">${escapeHtml(entry.notes)}</div>` : '';
@@ -277,7 +278,7 @@ ${content.ranking.map((entry) => rankingRow(entry, publicUrl, movement, withMove
     .join(' ');
   return renderMailHtml({
     title: `${content.campaign.name}: weekly ranking`,
-    preheader: content.ranking[0] ? `Top variant: ${content.ranking[0].label} (ΔΔG‡ ${formatEnergy(content.ranking[0].ddgKjPerMol.value, content.ranking[0].ddgKjPerMol.se)} kJ/mol)` : 'No ranked variants yet.',
+    preheader: content.ranking[0] ? `Top variant: ${content.ranking[0].label} (ΔΔG‡ ${formatEnergy(content.ranking[0].ddgKjPerMol.value, content.ranking[0].ddgKjPerMol.se, 'kJ/mol')})` : 'No ranked variants yet.',
     bodyHtml: parts.join('\n'),
     footerHtml: footer,
   });

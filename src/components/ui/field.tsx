@@ -1,6 +1,6 @@
 import { forwardRef, useId, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes } from 'react';
 
-const controlClass =
+export const controlClass =
   'block w-full rounded-md border bg-white px-3 py-2 text-sm text-ink-900 placeholder:text-ink-400 focus:border-lagoon-500 focus:outline-none focus:ring-2 focus:ring-lagoon-200';
 
 interface FieldFrameProps {
@@ -11,7 +11,8 @@ interface FieldFrameProps {
   children: ReactNode;
 }
 
-function FieldFrame({ id, label, error, hint, children }: FieldFrameProps) {
+/** The label above a control and its error (or else its hint) below, tied to it by id. */
+export function FieldFrame({ id, label, error, hint, children }: FieldFrameProps) {
   return (
     <div className="space-y-1">
       <label htmlFor={id} className="block text-sm font-medium text-ink-700">

@@ -15,13 +15,13 @@ import type { EnzymeSummaryDto } from '@shared/schemas/enzyme';
 import { Button } from '@/components/ui/button';
 import { SelectField, TextField } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
+import { isStaleVersion, StaleVersionNotice } from '@/components/ui/stale-version-notice';
+import { TextAreaField } from '@/components/ui/text-area-field';
 import { paths } from '@/config/paths';
 import { ApiError } from '@/lib/api-client';
 import { applyServerErrors } from '@/lib/form-errors';
 import { useCreateCampaign } from '../api/create-campaign';
 import { useUpdateCampaign } from '../api/update-campaign';
-import { isStaleVersion, StaleVersionNotice } from './stale-version-notice';
-import { TextAreaField } from './text-area-field';
 
 const statusOptions = campaignStatuses.map((status) => ({ value: status, label: status.charAt(0).toUpperCase() + status.slice(1) }));
 

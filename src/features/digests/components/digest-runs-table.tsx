@@ -1,7 +1,8 @@
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import { createColumnHelper, getCoreRowModel, useReactTable } from '@tanstack/react-table';
 import { useMemo } from 'react';
 import type { DigestRunSummaryDto } from '@shared/schemas/digest';
 import { Button } from '@/components/ui/button';
+import { DataTable } from '@/components/ui/data-table';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { formatDate, formatDateTime } from '@/lib/format';
 import { useDigestRuns } from '../api/get-digest-runs';
@@ -31,7 +32,7 @@ export function DigestRunsTable({ campaignId, page, onPage, onOpen }: { campaign
           return run.kind === 'scheduled' ? `Weekly, ${formatDate(run.scheduledFor)}` : `Sent now by ${run.triggeredBy?.name ?? 'someone'}`;
         },
       }),
-      column.accessor('recipientCount', { header: () => <span className="block text-right">Recipients</span>, cell: (info) => <span className="numeric block">{info.getValue()}</span> }),
+      column.accessor('recipientCount', { header: 'Recipients', cell: (info) => info.getValue(), meta: { numeric: true } }),
       column.display({ id: 'delivery', header: 'Delivery', cell: (info) => deliveryText(info.row.original) }),
       column.display({
         id: 'open',
@@ -59,32 +60,7 @@ export function DigestRunsTable({ campaignId, page, onPage, onOpen }: { campaign
   const pages = Math.ceil(runs.data.total / runs.data.pageSize);
   return (
     <div className="space-y-2">
-      <div className="overflow-x-auto rounded-lg border border-paper-200 bg-white shadow-card">
-        <table className="min-w-full text-sm">
-          <thead className="bg-paper-100 text-left text-xs uppercase tracking-wide text-ink-600">
-            {table.getHeaderGroups().map((group) => (
-              <tr key={group.id}>
-                {group.headers.map((header) => (
-                  <th key={header.id} scope="col" className="px-3 py-2 font-semibold">
-                    {flexRender(header.column.columnDef.header, header.getContext())}
-                  </th>
-                ))}
-              </tr>
-            ))}
-          </thead>
-          <tbody className="divide-y divide-paper-200">
-            {table.getRowModel().rows.map((row) => (
-              <tr key={row.id}>
-                {row.getVisibleCells().map((cell) => (
-                  <td key={cell.id} className="px-3 py-2 align-middle">
-                    {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                  </td>
-                ))}
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </div>
+      <DataTable table={table} caption="Past digests" cellAlign="middle" />
       {pages > 1 && (
         <div className="flex items-center justify-between text-sm text-ink-600">
           <Button variant="quiet" disabled={page <= 1} onClick={() => onPage(page - 1)}>

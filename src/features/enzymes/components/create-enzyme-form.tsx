@@ -21,7 +21,7 @@ type FormValues = z.input<typeof createEnzymeInput>;
 /** What the route needs to draw the sequence map beside the form. */
 export interface SequencePreview {
   sequence: string;
-  sites: { position: number; role: CatalyticRole; expectedPka?: number | null }[];
+  sites: { position: number; role: CatalyticRole; expectedPka?: number | null; note?: string | null }[];
   highlightPosition?: number;
 }
 
@@ -64,7 +64,7 @@ export function CreateEnzymeForm({ onCreated, renderPreview }: CreateEnzymeFormP
 
   const previewSites = sites
     .filter((site) => Number.isInteger(site.position) && site.position >= 1 && site.position <= sequence.length)
-    .map((site) => ({ position: site.position, role: site.role, expectedPka: site.expectedPka ?? null }));
+    .map((site) => ({ position: site.position, role: site.role, expectedPka: site.expectedPka ?? null, note: site.note ?? null }));
 
   return (
     <form noValidate onSubmit={handleSubmit} className="space-y-6">

@@ -5,12 +5,12 @@ import { updateEnzymeInput, type EnzymeDto, type UpdateEnzymeInput } from '@shar
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
+import { isStaleVersion, StaleVersionNotice } from '@/components/ui/stale-version-notice';
 import { ApiError } from '@/lib/api-client';
 import { applyServerErrors } from '@/lib/form-errors';
 import { useUpdateEnzyme } from '../api/update-enzyme';
 import { CofactorsField } from './cofactors-field';
 import { SequenceField } from './sequence-field';
-import { isStaleVersion, StaleVersionNotice } from './stale-version-notice';
 
 type FormValues = z.input<typeof updateEnzymeInput>;
 

@@ -1,6 +1,7 @@
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import { createColumnHelper, getCoreRowModel, useReactTable } from '@tanstack/react-table';
 import { Link } from 'react-router-dom';
 import { cofactorLabels, type EnzymeSummaryDto } from '@shared/schemas/enzyme';
+import { DataTable } from '@/components/ui/data-table';
 import { paths } from '@/config/paths';
 import { formatDate } from '@/lib/format';
 
@@ -18,8 +19,9 @@ const columns = [
   column.accessor('ecNumber', { header: 'EC', cell: (info) => <span className="font-mono">{info.getValue() ?? '—'}</span> }),
   column.accessor('organism', { header: 'Organism', cell: (info) => <span className="text-ink-700">{info.getValue()}</span> }),
   column.accessor('sequenceLength', {
-    header: () => <span className="block text-right">Residues</span>,
-    cell: (info) => <span className="numeric block font-mono">{info.getValue()}</span>,
+    header: 'Residues',
+    cell: (info) => <span className="font-mono">{info.getValue()}</span>,
+    meta: { numeric: true },
   }),
   column.accessor('cofactors', {
     header: 'Cofactors',
@@ -29,12 +31,14 @@ const columns = [
     },
   }),
   column.accessor('siteCount', {
-    header: () => <span className="block text-right">Sites</span>,
-    cell: (info) => <span className="numeric block font-mono">{info.getValue()}</span>,
+    header: 'Sites',
+    cell: (info) => <span className="font-mono">{info.getValue()}</span>,
+    meta: { numeric: true },
   }),
   column.accessor('campaignCount', {
-    header: () => <span className="block text-right">Campaigns</span>,
-    cell: (info) => <span className="numeric block font-mono">{info.getValue()}</span>,
+    header: 'Campaigns',
+    cell: (info) => <span className="font-mono">{info.getValue()}</span>,
+    meta: { numeric: true },
   }),
   column.accessor('updatedAt', { header: 'Changed', cell: (info) => <span className="whitespace-nowrap text-ink-600">{formatDate(info.getValue())}</span> }),
 ];
@@ -42,33 +46,5 @@ const columns = [
 /** Every parent enzyme, by name, without sequences. */
 export function EnzymesTable({ enzymes }: { enzymes: EnzymeSummaryDto[] }) {
   const table = useReactTable({ data: enzymes, columns, getCoreRowModel: getCoreRowModel(), getRowId: (row) => String(row.id) });
-  return (
-    <div className="overflow-x-auto rounded-lg border border-paper-200 bg-white shadow-card">
-      <table className="min-w-full text-sm">
-        <caption className="sr-only">Enzymes</caption>
-        <thead className="bg-paper-100 text-left text-xs uppercase tracking-wide text-ink-600">
-          {table.getHeaderGroups().map((group) => (
-            <tr key={group.id}>
-              {group.headers.map((header) => (
-                <th key={header.id} scope="col" className="px-3 py-2 font-semibold">
-                  {flexRender(header.column.columnDef.header, header.getContext())}
-                </th>
-              ))}
-            </tr>
-          ))}
-        </thead>
-        <tbody className="divide-y divide-paper-200">
-          {table.getRowModel().rows.map((row) => (
-            <tr key={row.id} className="hover:bg-paper-50">
-              {row.getVisibleCells().map((cell) => (
-                <td key={cell.id} className="px-3 py-2 align-top">
-                  {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                </td>
-              ))}
-            </tr>
-          ))}
-        </tbody>
-      </table>
-    </div>
-  );
+  return <DataTable table={table} caption="Enzymes" rowClassName={() => 'hover:bg-paper-50'} />;
 }

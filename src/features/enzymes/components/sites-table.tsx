@@ -1,8 +1,9 @@
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import { createColumnHelper, getCoreRowModel, useReactTable } from '@tanstack/react-table';
 import { useMemo } from 'react';
 import type { CatalyticSiteDto } from '@shared/schemas/enzyme';
 import { aminoAcidFromOneLetter } from '@shared/sequence/amino-acids';
 import { Button } from '@/components/ui/button';
+import { DataTable } from '@/components/ui/data-table';
 import { Notice } from '@/components/ui/notice';
 import { EmptyState } from '@/components/ui/states';
 import { useDeleteSite } from '../api/delete-site';
@@ -16,8 +17,9 @@ export function SitesTable({ sites, canEdit }: { sites: readonly CatalyticSiteDt
   const columns = useMemo(
     () => [
       column.accessor('position', {
-        header: () => <span className="block text-right">Position</span>,
-        cell: (info) => <span className="numeric block font-mono">{info.getValue()}</span>,
+        header: 'Position',
+        cell: (info) => <span className="font-mono">{info.getValue()}</span>,
+        meta: { numeric: true },
       }),
       column.accessor('residue', {
         header: 'Residue',
@@ -29,8 +31,9 @@ export function SitesTable({ sites, canEdit }: { sites: readonly CatalyticSiteDt
       }),
       column.accessor('role', { header: 'Role', cell: (info) => info.getValue().charAt(0).toUpperCase() + info.getValue().slice(1) }),
       column.accessor('expectedPka', {
-        header: () => <span className="block text-right">Expected pKa</span>,
-        cell: (info) => <span className="numeric block font-mono">{info.getValue() === null ? '—' : info.getValue()!.toFixed(1)}</span>,
+        header: 'Expected pKa',
+        cell: (info) => <span className="font-mono">{info.getValue() === null ? '—' : info.getValue()!.toFixed(1)}</span>,
+        meta: { numeric: true },
       }),
       ...(hasNotes ? [column.accessor('note', { header: 'Note', cell: (info) => <span className="text-ink-600">{info.getValue() ?? ''}</span> })] : []),
       ...(canEdit
@@ -64,33 +67,7 @@ export function SitesTable({ sites, canEdit }: { sites: readonly CatalyticSiteDt
   return (
     <div className="space-y-2">
       {deleteSite.isError && <Notice tone="danger" title="The site could not be removed">{deleteSite.error.message}</Notice>}
-      <div className="overflow-x-auto rounded-lg border border-paper-200 bg-white">
-        <table className="min-w-full text-sm">
-          <caption className="sr-only">Catalytic sites</caption>
-          <thead className="bg-paper-100 text-left text-xs uppercase tracking-wide text-ink-600">
-            {table.getHeaderGroups().map((group) => (
-              <tr key={group.id}>
-                {group.headers.map((header) => (
-                  <th key={header.id} scope="col" className="px-3 py-2 font-semibold">
-                    {flexRender(header.column.columnDef.header, header.getContext())}
-                  </th>
-                ))}
-              </tr>
-            ))}
-          </thead>
-          <tbody className="divide-y divide-paper-200">
-            {table.getRowModel().rows.map((row) => (
-              <tr key={row.id}>
-                {row.getVisibleCells().map((cell) => (
-                  <td key={cell.id} className="px-3 py-1.5 align-top">
-                    {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                  </td>
-                ))}
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </div>
+      <DataTable table={table} caption="Catalytic sites" variant="inset" />
     </div>
   );
 }

@@ -1,15 +1,9 @@
-import {
-  createColumnHelper,
-  flexRender,
-  getCoreRowModel,
-  useReactTable,
-  type OnChangeFn,
-  type RowSelectionState,
-} from '@tanstack/react-table';
+import { createColumnHelper, getCoreRowModel, useReactTable, type OnChangeFn, type RowSelectionState } from '@tanstack/react-table';
 import { useEffect, useMemo, useRef } from 'react';
 import { Link } from 'react-router-dom';
 import type { KineticModelName } from '@shared/schemas/assay';
 import type { MeasurementDto } from '@shared/schemas/measurement';
+import { DataTable } from '@/components/ui/data-table';
 import { paths } from '@/config/paths';
 import { formatDate } from '@/lib/format';
 import { kmWithError, withError } from '../format-with-error';
@@ -115,30 +109,34 @@ export function ReviewTable({ measurements, selection, onSelectionChange }: Revi
         ),
       }),
       column.accessor('kcat', {
-        header: () => <span className="block text-right">kcat (s⁻¹)</span>,
-        cell: ({ getValue }) => <span className="numeric block whitespace-nowrap font-mono">{withError(getValue())}</span>,
+        header: 'kcat (s⁻¹)',
+        cell: ({ getValue }) => <span className="whitespace-nowrap font-mono">{withError(getValue())}</span>,
+        meta: { numeric: true },
       }),
       column.accessor('km', {
-        header: () => <span className="block text-right">Km</span>,
-        cell: ({ getValue }) => <span className="numeric block whitespace-nowrap font-mono">{kmWithError(getValue())}</span>,
+        header: 'Km',
+        cell: ({ getValue }) => <span className="whitespace-nowrap font-mono">{kmWithError(getValue())}</span>,
+        meta: { numeric: true },
       }),
       column.accessor('kcatOverKm', {
-        header: () => <span className="block text-right">kcat/Km (M⁻¹ s⁻¹)</span>,
-        cell: ({ getValue }) => <span className="numeric block whitespace-nowrap font-mono">{withError(getValue(), true)}</span>,
+        header: 'kcat/Km (M⁻¹ s⁻¹)',
+        cell: ({ getValue }) => <span className="whitespace-nowrap font-mono">{withError(getValue(), true)}</span>,
+        meta: { numeric: true },
       }),
       column.accessor('completeness', {
-        header: () => <span className="block text-right">Reporting</span>,
+        header: 'Reporting',
         cell: ({ getValue }) => {
           const completeness = getValue();
           return (
             <span
-              className="numeric block font-mono"
+              className="font-mono"
               title={completeness.missing.length === 0 ? 'Every STRENDA item is reported.' : `Missing: ${completeness.missing.join(', ')}`}
             >
               {Math.round(completeness.score * 100)} %
             </span>
           );
         },
+        meta: { numeric: true },
       }),
       column.display({
         id: 'checks',
@@ -192,32 +190,5 @@ export function ReviewTable({ measurements, selection, onSelectionChange }: Revi
     onRowSelectionChange: onSelectionChange,
   });
 
-  return (
-    <div className="overflow-x-auto rounded-lg border border-paper-200 bg-white shadow-card">
-      <table className="min-w-full text-sm">
-        <thead className="bg-lagoon-50 text-left text-xs text-lagoon-900">
-          {table.getHeaderGroups().map((group) => (
-            <tr key={group.id}>
-              {group.headers.map((header) => (
-                <th key={header.id} scope="col" className="px-2.5 py-2.5 font-semibold">
-                  {flexRender(header.column.columnDef.header, header.getContext())}
-                </th>
-              ))}
-            </tr>
-          ))}
-        </thead>
-        <tbody className="divide-y divide-paper-200">
-          {table.getRowModel().rows.map((row) => (
-            <tr key={row.id} className={row.getIsSelected() ? 'bg-lagoon-50' : undefined}>
-              {row.getVisibleCells().map((cell) => (
-                <td key={cell.id} className="px-2.5 py-2 align-top">
-                  {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                </td>
-              ))}
-            </tr>
-          ))}
-        </tbody>
-      </table>
-    </div>
-  );
+  return <DataTable table={table} caption="Submitted measurements" variant="wide" />;
 }

@@ -1,8 +1,9 @@
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import { createColumnHelper, getCoreRowModel, useReactTable } from '@tanstack/react-table';
 import { useMemo } from 'react';
 import { roleLabels, roles, type Role } from '@shared/auth/permissions';
 import type { SessionUserDto, UserDto } from '@shared/schemas/auth';
 import { Button } from '@/components/ui/button';
+import { DataTable } from '@/components/ui/data-table';
 import { Notice } from '@/components/ui/notice';
 import { ApiError } from '@/lib/api-client';
 import { useUpdateUser } from '../api/update-user';
@@ -83,32 +84,7 @@ export function UsersTable({ users, me, onReload }: { users: UserDto[]; me: Sess
           )}
         </Notice>
       )}
-      <div className="overflow-x-auto rounded-lg border border-paper-200 bg-white shadow-card">
-        <table className="min-w-full text-sm">
-          <thead className="bg-paper-100 text-left text-xs uppercase tracking-wide text-ink-600">
-            {table.getHeaderGroups().map((group) => (
-              <tr key={group.id}>
-                {group.headers.map((header) => (
-                  <th key={header.id} scope="col" className="px-3 py-2 font-semibold">
-                    {flexRender(header.column.columnDef.header, header.getContext())}
-                  </th>
-                ))}
-              </tr>
-            ))}
-          </thead>
-          <tbody className="divide-y divide-paper-200">
-            {table.getRowModel().rows.map((row) => (
-              <tr key={row.id}>
-                {row.getVisibleCells().map((cell) => (
-                  <td key={cell.id} className="px-3 py-2 align-middle">
-                    {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                  </td>
-                ))}
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </div>
+      <DataTable table={table} caption="Users" cellAlign="middle" />
     </div>
   );
 }

@@ -6,11 +6,11 @@ import { updateVariantInput, type UpdateVariantInput, type VariantDto } from '@s
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
+import { isStaleVersion, StaleVersionNotice } from '@/components/ui/stale-version-notice';
+import { TextAreaField } from '@/components/ui/text-area-field';
 import { formatDateTime } from '@/lib/format';
 import { applyServerErrors } from '@/lib/form-errors';
 import { useUpdateVariant } from '../api/update-variant';
-import { isStaleVersion, StaleVersionNotice } from './stale-version-notice';
-import { TextAreaField } from './text-area-field';
 
 interface DetailsPanelProps {
   variant: VariantDto;

@@ -1,11 +1,14 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import { createColumnHelper, getCoreRowModel, useReactTable } from '@tanstack/react-table';
 import { useMemo, useState } from 'react';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { reviewMeasurementInput, reviewTransitions, type MeasurementDto, type ReviewAction, type ReviewMeasurementInput } from '@shared/schemas/measurement';
 import { Button } from '@/components/ui/button';
+import { DataTable } from '@/components/ui/data-table';
 import { Notice } from '@/components/ui/notice';
+import { isStaleVersion, StaleVersionNotice } from '@/components/ui/stale-version-notice';
+import { TextAreaField } from '@/components/ui/text-area-field';
 import { ApiError } from '@/lib/api-client';
 import { formatPh } from '@/lib/format';
 import { applyServerErrors } from '@/lib/form-errors';
@@ -13,9 +16,7 @@ import { useReviewMeasurement } from '../api/review-measurement';
 import { formatKcatOverKmWithSe, formatKcatWithSe, formatKmWithSe, kmUnitFor } from '../format-estimates';
 import { MeasurementFlags } from './measurement-flags';
 import { KcatOverKmSymbol, KcatSymbol, KmSymbol } from './rate-symbols';
-import { isStaleVersion, StaleVersionNotice } from './stale-version-notice';
 import { ReviewStateBadge } from './review-state-badge';
-import { TextAreaField } from './text-area-field';
 
 export interface ReviewPermissions {
   /** Kineticists, leads and admins submit drafts. */
@@ -114,27 +115,30 @@ export function MeasurementsTable({ measurements, canSubmit, canReview, onReload
       }),
       column.accessor('kcat', {
         header: () => (
-          <span className="block text-right">
+          <span className="whitespace-nowrap">
             <KcatSymbol /> <span className="normal-case">(s⁻¹)</span>
           </span>
         ),
-        cell: (info) => <span className="numeric block whitespace-nowrap font-mono">{formatKcatWithSe(info.getValue(), false)}</span>,
+        cell: (info) => <span className="whitespace-nowrap font-mono">{formatKcatWithSe(info.getValue(), false)}</span>,
+        meta: { numeric: true },
       }),
       column.accessor('km', {
         header: () => (
-          <span className="block text-right">
+          <span className="whitespace-nowrap">
             <KmSymbol /> <span className="normal-case">({kmUnit})</span>
           </span>
         ),
-        cell: (info) => <span className="numeric block whitespace-nowrap font-mono">{formatKmWithSe(info.getValue(), kmUnit, false)}</span>,
+        cell: (info) => <span className="whitespace-nowrap font-mono">{formatKmWithSe(info.getValue(), kmUnit, false)}</span>,
+        meta: { numeric: true },
       }),
       column.accessor('kcatOverKm', {
         header: () => (
-          <span className="block text-right">
+          <span className="whitespace-nowrap">
             <KcatOverKmSymbol /> <span className="normal-case">(M⁻¹ s⁻¹)</span>
           </span>
         ),
-        cell: (info) => <span className="numeric block whitespace-nowrap font-mono">{formatKcatOverKmWithSe(info.getValue(), false)}</span>,
+        cell: (info) => <span className="whitespace-nowrap font-mono">{formatKcatOverKmWithSe(info.getValue(), false)}</span>,
+        meta: { numeric: true },
       }),
       column.accessor('reviewState', {
         header: 'Review',
@@ -160,16 +164,17 @@ export function MeasurementsTable({ measurements, canSubmit, canReview, onReload
       }),
       column.accessor((measurement) => measurement.completeness.score, {
         id: 'completeness',
-        header: () => <span className="block text-right">STRENDA</span>,
+        header: 'STRENDA',
         cell: (info) => {
           const { score, missing } = info.row.original.completeness;
           return (
-            <div className="text-right">
-              <span className="font-mono tabular-nums">{Math.round(score * 100)} %</span>
+            <>
+              <span className="font-mono">{Math.round(score * 100)} %</span>
               <p className="text-xs text-ink-500">{missing.length === 0 ? 'complete' : `${missing.length} missing`}</p>
-            </div>
+            </>
           );
         },
+        meta: { numeric: true },
       }),
       column.display({
         id: 'actions',
@@ -229,33 +234,11 @@ export function MeasurementsTable({ measurements, canSubmit, canReview, onReload
           }}
         />
       )}
-      <div className="overflow-x-auto rounded-lg border border-paper-200 bg-white shadow-card">
-        <table className="min-w-full text-sm">
-          <caption className="sr-only">Measurements of this variant</caption>
-          <thead className="bg-paper-100 text-left text-xs uppercase tracking-wide text-ink-600">
-            {table.getHeaderGroups().map((group) => (
-              <tr key={group.id}>
-                {group.headers.map((header) => (
-                  <th key={header.id} scope="col" className="whitespace-nowrap px-3 py-2 font-semibold">
-                    {flexRender(header.column.columnDef.header, header.getContext())}
-                  </th>
-                ))}
-              </tr>
-            ))}
-          </thead>
-          <tbody className="divide-y divide-paper-200">
-            {table.getRowModel().rows.map((row) => (
-              <tr key={row.id} className={row.original.supersededById !== null || row.original.reviewState === 'retracted' ? 'bg-paper-50 text-ink-600' : undefined}>
-                {row.getVisibleCells().map((cell) => (
-                  <td key={cell.id} className="px-3 py-2 align-top">
-                    {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                  </td>
-                ))}
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </div>
+      <DataTable
+        table={table}
+        caption="Measurements of this variant"
+        rowClassName={(row) => (row.original.supersededById !== null || row.original.reviewState === 'retracted' ? 'bg-paper-50 text-ink-600' : undefined)}
+      />
       {superseded > 0 && (
         <label className="inline-flex items-center gap-2 text-sm text-ink-700">
           <input type="checkbox" checked={showSuperseded} onChange={(event) => setShowSuperseded(event.target.checked)} className="size-4 accent-lagoon-700" />

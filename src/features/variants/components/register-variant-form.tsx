@@ -10,12 +10,12 @@ import { createVariantInput, variantStatuses, type CreateVariantInput, type Vari
 import { Button, Spinner } from '@/components/ui/button';
 import { SelectField, TextField } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
+import { TextAreaField } from '@/components/ui/text-area-field';
 import { paths } from '@/config/paths';
 import { ApiError } from '@/lib/api-client';
 import { applyServerErrors } from '@/lib/form-errors';
 import { useCreateVariant } from '../api/create-variant';
 import { useVariants } from '../api/get-variants';
-import { TextAreaField } from './text-area-field';
 import { variantStatusLabels } from './variant-status-badge';
 
 type FormValues = z.input<typeof createVariantInput>;

@@ -5,10 +5,10 @@ import { updateVariantInput, variantStatuses, type UpdateVariantInput, type Vari
 import { Button } from '@/components/ui/button';
 import { SelectField } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
+import { isStaleVersion, StaleVersionNotice } from '@/components/ui/stale-version-notice';
 import { formatDateTime } from '@/lib/format';
 import { applyServerErrors } from '@/lib/form-errors';
 import { useUpdateVariant } from '../api/update-variant';
-import { isStaleVersion, StaleVersionNotice } from './stale-version-notice';
 import { variantStatusLabels, VariantStatusBadge } from './variant-status-badge';
 
 const statusOptions = variantStatuses.map((status) => ({ value: status, label: variantStatusLabels[status] }));

@@ -1,6 +1,6 @@
-import { Button } from '@/components/ui/button';
-import { Notice } from '@/components/ui/notice';
 import { ApiError } from '@/lib/api-client';
+import { Button } from './button';
+import { Notice } from './notice';
 
 /** Whether an error is the server's refusal of a stale version (someone saved first). */
 export const isStaleVersion = (error: unknown): boolean => error instanceof ApiError && error.code === 'stale_version';
