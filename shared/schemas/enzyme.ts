@@ -119,6 +119,14 @@ export const catalyticSiteInput = z.object({
     .min(0, 'must be between 0 and 14')
     .max(14, 'must be between 0 and 14')
     .optional(),
+  /** Free text on what the residue does; trimmed, and an empty note is no note. */
+  note: z
+    .string({ error: 'must be text or null' })
+    .trim()
+    .max(500, 'must be at most 500 characters')
+    .nullable()
+    .transform((value) => (value === null || value === '' ? null : value))
+    .optional(),
 });
 export type CatalyticSiteInput = z.infer<typeof catalyticSiteInput>;
 
@@ -215,16 +223,8 @@ export const updateEnzymeInput = z
   );
 export type UpdateEnzymeInput = z.infer<typeof updateEnzymeInput>;
 
-/** A catalytic site added on its own (`POST /api/enzymes/:id/sites`), with an optional note. */
-export const createCatalyticSiteInput = catalyticSiteInput.extend({
-  note: z
-    .string({ error: 'must be text or null' })
-    .trim()
-    .max(500, 'must be at most 500 characters')
-    .nullable()
-    .transform((value) => (value === null || value === '' ? null : value))
-    .optional(),
-});
+/** A catalytic site added on its own (`POST /api/enzymes/:id/sites`): the same fields as in a new enzyme's list. */
+export const createCatalyticSiteInput = catalyticSiteInput;
 export type CreateCatalyticSiteInput = z.infer<typeof createCatalyticSiteInput>;
 
 /** Largest FASTA text accepted, in bytes (uploaded) or characters (posted as JSON): 1 MiB. */

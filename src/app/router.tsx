@@ -1,7 +1,9 @@
 import { lazy, Suspense, type ReactNode } from 'react';
-import { createBrowserRouter, RouterProvider } from 'react-router-dom';
+import { createBrowserRouter, RouterProvider, type LoaderFunctionArgs } from 'react-router-dom';
 import { LoadingState } from '@/components/ui/states';
 import { paths } from '@/config/paths';
+import { getMeQueryOptions } from '@/features/auth/api/get-me';
+import { queryClient } from '@/lib/query-client';
 import { RequirePermission, SignedInLayout } from './guards';
 
 const SignInRoute = lazy(() => import('./routes/sign-in'));
@@ -32,6 +34,26 @@ const UnsubscribeRoute = lazy(() => import('./routes/unsubscribe'));
 
 const page = (element: ReactNode) => <Suspense fallback={<LoadingState />}>{element}</Suspense>;
 
+// The loaders start requests and return at once, so nothing waits on them: the session is asked for when
+// the navigation starts, before page code loading in the meantime can hold up the first render that would
+// otherwise ask for it; the registry's first rows and its code (with the grid) are asked for alongside,
+// rather than one after the other once the page has rendered. A failure here is met again, and shown, by the page.
+function sessionLoader() {
+  void queryClient.prefetchQuery(getMeQueryOptions());
+  return null;
+}
+
+function registryLoader({ request }: LoaderFunctionArgs) {
+  // The rows are asked for first: evaluating the page's code (mostly the grid) holds the main thread for a
+  // good while, and the requests should be on their way by then.
+  import('@/features/registry/api/prefetch-registry')
+    .then(({ prefetchRegistry }) => void prefetchRegistry(queryClient, new URL(request.url).searchParams))
+    .catch(() => undefined)
+    .then(() => import('./routes/registry'))
+    .catch(() => undefined);
+  return null;
+}
+
 const router = createBrowserRouter([
   { path: paths.signIn.path, element: page(<SignInRoute />) },
   { path: paths.acceptInvitation.path, element: page(<AcceptInvitationRoute />) },
@@ -40,9 +62,11 @@ const router = createBrowserRouter([
   { path: paths.unsubscribe.path, element: page(<UnsubscribeRoute />) },
   {
     element: <SignedInLayout />,
+    loader: sessionLoader,
+    hydrateFallbackElement: <LoadingState label="Checking your session…" />,
     children: [
       { path: paths.home.path, element: page(<OverviewRoute />) },
-      { path: paths.registry.path, element: page(<RegistryRoute />) },
+      { path: paths.registry.path, element: page(<RegistryRoute />), loader: registryLoader, hydrateFallbackElement: <LoadingState /> },
       {
         path: paths.review.path,
         element: page(

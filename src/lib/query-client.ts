@@ -15,3 +15,9 @@ export function createQueryClient(): QueryClient {
     },
   });
 }
+
+/**
+ * The application's one client, made when the app starts: the provider hands it to components, and the
+ * router's loaders, which run before anything renders, start requests in it.
+ */
+export const queryClient = createQueryClient();

@@ -1,5 +1,6 @@
 import { spawn, type ChildProcess } from 'node:child_process';
-import { resolve } from 'node:path';
+import { join, resolve } from 'node:path';
+import { ensureClientBuilt } from '../../server/client-build';
 
 const rootDir = resolve(import.meta.dirname, '../..');
 
@@ -8,9 +9,19 @@ export interface RunningServer {
   stop: () => Promise<void>;
 }
 
-/** Starts the API (no client build) on a data folder and waits until /api/health answers. */
-export async function startServer(dataDir: string, port: number): Promise<RunningServer> {
-  const server: ChildProcess = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts', '--api-only'], {
+export interface StartServerOptions {
+  /**
+   * Serve the built client too, as `npm start` does (for a benchmark in the browser). The client is built
+   * here first when its sources changed, so the server starts within the health deadline.
+   */
+  serveClient?: boolean;
+}
+
+/** Starts the API (by default without the client) on a data folder and waits until /api/health answers. */
+export async function startServer(dataDir: string, port: number, options: StartServerOptions = {}): Promise<RunningServer> {
+  if (options.serveClient) await ensureClientBuilt(rootDir, join(rootDir, 'dist', 'client'));
+  const serverArguments = ['--import', 'tsx', 'server/index.ts', ...(options.serveClient ? [] : ['--api-only'])];
+  const server: ChildProcess = spawn(process.execPath, serverArguments, {
     cwd: rootDir,
     env: { ...process.env, PORT: String(port), KCATALOG_DATA_DIR: dataDir, KCATALOG_SEED: 'none', KCATALOG_HOST: '127.0.0.1', NODE_ENV: 'production' },
     stdio: ['ignore', 'pipe', 'inherit'],

@@ -1,3 +1,5 @@
+import { readFileSync } from 'node:fs';
+import Papa from 'papaparse';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { baseUrl, hasBrowser, openBrowser, screenshot, signInAs } from './session';
@@ -142,6 +144,45 @@ describe.skipIf(!hasBrowser)('the registry', () => {
     await expectGridToShow(page, sorted);
     expect(await page.getByLabel('Fold change at least (×)').inputValue()).toBe('1');
   }, 150_000);
+
+  it('exports the filtered, sorted view as a CSV file with exactly the rows shown, in their order', async () => {
+    const query = 'role=electrostatic&minFoldChange=1&sort=ddg&order=asc';
+    await page.goto(`${baseUrl}/registry?${query}`);
+    const expected = await apiLabels(page, query);
+    await expectGridToShow(page, expected);
+    const shown = await matchCount(page);
+    expect(shown).toBe(expected.length);
+
+    const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('link', { name: 'CSV' }).click()]);
+    expect(download.suggestedFilename()).toMatch(/^kcatalog-variants-\d{4}-\d{2}-\d{2}\.csv$/);
+    const text = readFileSync(await download.path(), 'utf8');
+    // One header line, then one line per variant (the demo's notes hold no line breaks); the file ends with a line break.
+    const lines = text.replace(/^\ufeff/, '').split('\r\n').filter((line) => line !== '');
+    expect(lines.length - 1).toBe(shown);
+    const parsed = Papa.parse<Record<string, string>>(text.replace(/^\ufeff/, ''), { header: true, skipEmptyLines: true });
+    expect(parsed.errors).toEqual([]);
+    expect(parsed.data.map((row) => row.Mutations)).toEqual(expected);
+    expect(parsed.data.every((row) => row['Catalytic roles'].split(', ').includes('electrostatic'))).toBe(true);
+    await screenshot(page, 'registry-export');
+  });
+
+  it('lets a viewer export the view too', async () => {
+    const viewerContext = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    try {
+      const viewer = await viewerContext.newPage();
+      await signInAs(viewer, 'viewer@kcatalog.example');
+      await viewer.goto(`${baseUrl}/registry?role=electrostatic`);
+      await labelLinks(viewer).first().waitFor();
+      // A viewer may not register variants, but reading is all an export asks for.
+      expect(await viewer.getByRole('link', { name: 'Register variant' }).count()).toBe(0);
+      const [download] = await Promise.all([viewer.waitForEvent('download'), viewer.getByRole('link', { name: 'CSV' }).click()]);
+      const parsed = Papa.parse<Record<string, string>>(readFileSync(await download.path(), 'utf8').replace(/^\ufeff/, ''), { header: true, skipEmptyLines: true });
+      expect(parsed.data.map((row) => row.Mutations)).toEqual(await apiLabels(viewer, 'role=electrostatic&sort=updated&order=desc'));
+      await screenshot(viewer, 'registry-viewer');
+    } finally {
+      await viewerContext.close();
+    }
+  });
 
   it('hides a column through the URL-backed column choice and shows ΔΔG‡ in kcal/mol on request', async () => {
     await page.goto(`${baseUrl}/registry?role=electrostatic&sort=ddg&order=asc`);

@@ -1,15 +1,36 @@
-import type { Browser } from 'playwright-core';
+import { mkdirSync } from 'node:fs';
+import { resolve } from 'node:path';
+import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { baseUrl, hasBrowser, openBrowser, screenshot, signInAs } from './session';
 
 // The navigation each role should see; the permission table in shared/auth decides it.
+// About and the password page are in the account menu, for every role.
 const expectedNavigation: Record<string, string[]> = {
-  admin: ['Overview', 'Registry', 'Landscape', 'Assay entry', 'Enzymes', 'Imports', 'Review', 'Digests', 'Outbox', 'Admin', 'About'],
-  lead: ['Overview', 'Registry', 'Landscape', 'Assay entry', 'Enzymes', 'Imports', 'Review', 'Digests', 'About'],
-  kineticist: ['Overview', 'Registry', 'Landscape', 'Assay entry', 'Enzymes', 'Imports', 'Digests', 'About'],
-  biologist: ['Overview', 'Registry', 'Landscape', 'Enzymes', 'Imports', 'Digests', 'About'],
-  viewer: ['Overview', 'Registry', 'Landscape', 'Enzymes', 'Digests', 'About'],
+  admin: ['Overview', 'Registry', 'Landscape', 'Assay entry', 'Enzymes', 'Imports', 'Review', 'Digests', 'Outbox', 'Admin'],
+  lead: ['Overview', 'Registry', 'Landscape', 'Assay entry', 'Enzymes', 'Imports', 'Review', 'Digests'],
+  kineticist: ['Overview', 'Registry', 'Landscape', 'Assay entry', 'Enzymes', 'Imports', 'Digests'],
+  biologist: ['Overview', 'Registry', 'Landscape', 'Enzymes', 'Imports', 'Digests'],
+  viewer: ['Overview', 'Registry', 'Landscape', 'Enzymes', 'Digests'],
 };
+
+/** Where a screenshot of part of a page goes, beside the full-page ones (tests/e2e/screenshots, kept out of git). */
+function screenshotPath(name: string): string {
+  const directory = resolve(import.meta.dirname, 'screenshots');
+  mkdirSync(directory, { recursive: true });
+  return resolve(directory, `${name}.png`);
+}
+
+/** The vertical centres (rounded to the pixel) of the top bar's visible links and buttons, distinct and sorted. */
+async function headerRowTops(page: Page): Promise<number[]> {
+  const tops = await page.locator('header').first().locator('a, button').evaluateAll((elements) =>
+    elements
+      .map((element) => element.getBoundingClientRect())
+      .filter((box) => box.width > 0)
+      .map((box) => Math.round(box.top + box.height / 2)),
+  );
+  return [...new Set(tops)].sort((a, b) => a - b);
+}
 
 describe.skipIf(!hasBrowser)('signing in and out in the browser', () => {
   let browser: Browser;
@@ -44,6 +65,55 @@ describe.skipIf(!hasBrowser)('signing in and out in the browser', () => {
     await screenshot(page, `signed-in-${role}`);
     await page.getByRole('button', { name: 'Sign out' }).click();
     await page.waitForURL(/\/sign-in/);
+    await page.close();
+  });
+
+  it.each(['admin', 'lead', 'viewer'])('fits the top bar of a %s on one line at 1440 and 1280 px, and wraps it tidily below', async (role) => {
+    const page = await browser.newPage({ viewport: { width: 1440, height: 900 } });
+    await signInAs(page, `${role}@kcatalog.example`);
+    await page.goto(`${baseUrl}/registry`);
+    // The top bar appears once the session is read; the page's own header comes after it.
+    await page.getByRole('button', { name: 'Sign out' }).waitFor();
+    for (const width of [1440, 1280]) {
+      await page.setViewportSize({ width, height: 900 });
+      // Centres within a few pixels of each other: items of one line differ only in their own heights.
+      const tops = await headerRowTops(page);
+      expect(tops[tops.length - 1] - tops[0], `${role} at ${width} px: ${tops.join(', ')}`).toBeLessThanOrEqual(4);
+      await page.locator('header').first().screenshot({ path: screenshotPath(`top-bar-${role}-${width}`) });
+    }
+    // Narrower, the pages take a second line of their own; the name and account stay beside the brand.
+    await page.setViewportSize({ width: 1024, height: 900 });
+    const navTop = await page.getByRole('navigation', { name: 'Main' }).evaluate((element) => element.getBoundingClientRect().top);
+    const brandBottom = await page.locator('header a').first().evaluate((element) => element.getBoundingClientRect().bottom);
+    expect(navTop).toBeGreaterThanOrEqual(brandBottom);
+    await page.locator('header').first().screenshot({ path: screenshotPath(`top-bar-${role}-1024`) });
+    await page.close();
+  });
+
+  it('opens the account menu from the keyboard, with the password page and About, and closes it with Escape', async () => {
+    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    await signInAs(page, 'lead@kcatalog.example');
+    const account = page.getByRole('button', { name: /^Account:/ });
+    expect(await account.getAttribute('aria-expanded')).toBe('false');
+    expect(await page.getByRole('link', { name: 'Change password' }).count()).toBe(0);
+    await account.focus();
+    await page.keyboard.press('Enter');
+    expect(await account.getAttribute('aria-expanded')).toBe('true');
+    await page.keyboard.press('Tab');
+    expect(await page.evaluate(() => document.activeElement?.textContent)).toBe('Change password');
+    await page.keyboard.press('Tab');
+    expect(await page.evaluate(() => document.activeElement?.textContent)).toBe('About Kcatalog');
+    await screenshot(page, 'account-menu-open');
+    await page.keyboard.press('Escape');
+    expect(await account.getAttribute('aria-expanded')).toBe('false');
+    expect(await page.evaluate(() => document.activeElement?.getAttribute('aria-expanded'))).toBe('false');
+
+    await page.keyboard.press('Enter');
+    await page.getByRole('link', { name: 'Change password' }).click();
+    await page.waitForURL(/\/account\/password$/);
+    expect(await account.getAttribute('aria-expanded')).toBe('false');
+    await page.getByRole('contentinfo').getByRole('link', { name: 'About Kcatalog' }).click();
+    await page.getByRole('heading', { name: 'About Kcatalog' }).waitFor();
     await page.close();
   });
 

@@ -7,6 +7,7 @@ import type { DataSource } from 'typeorm';
 import { createApp } from '@server/app';
 import { openDatabase } from '@server/data-source';
 import type { DatabaseSessionStore } from '@server/modules/sessions/database-session-store';
+import { demoSites } from '@server/seed/demo-scenario';
 import { seedDemoIfEmpty } from '@server/seed/seed';
 import { removeDataDir, signedIn, testSecret } from './test-app';
 
@@ -62,6 +63,12 @@ describe('the demo seed', () => {
     expect(profiles).toBeGreaterThanOrEqual(4);
     const [{ events }] = await dataSource.query(`SELECT COUNT(*) AS events FROM audit_events`);
     expect(events).toBeGreaterThan(100);
+  });
+
+  it('keeps a note on every annotated catalytic site', async () => {
+    const sites: { position: number; note: string | null }[] = await dataSource.query(`SELECT position, note FROM catalytic_sites ORDER BY position`);
+    expect(sites.length).toBe(demoSites.length);
+    expect(sites.map((site) => site.note)).toEqual([...demoSites].sort((a, b) => a.position - b.position).map((site) => site.note));
   });
 
   it('serves the demo campaign through the API, with double-mutant cycles', async () => {

@@ -94,6 +94,30 @@ describe('POST /api/enzymes', () => {
     expect((event.after as { sites: unknown[] }).sites).toHaveLength(4);
   });
 
+  it('stores the sites\' notes given with a new enzyme and returns them', async () => {
+    const sites = [
+      { position: 112, residue: 'S', role: 'nucleophile', note: '  Attacks the carbonyl  ' },
+      { position: 190, residue: 'H', role: 'general base' },
+    ];
+    const enzyme = await createEnzyme({ sites });
+    expect(enzyme.sites.map((site: { position: number; note: string | null }) => [site.position, site.note])).toEqual([
+      [112, 'Attacks the carbonyl'],
+      [190, null],
+    ]);
+    const listed = (await as('viewer').get(`/api/enzymes/${enzyme.id}/sites`).expect(200)).body;
+    expect(listed.rows.map((site: { note: string | null }) => site.note)).toEqual(['Attacks the carbonyl', null]);
+  });
+
+  it('returns 400 for a site note over 500 characters, and writes nothing', async () => {
+    const name = uniqueName('Long note');
+    const response = await as('biologist')
+      .post('/api/enzymes', enzymeBody({ name, sites: [{ position: 190, residue: 'H', role: 'general base', note: 'n'.repeat(501) }] }))
+      .expect(400);
+    expect(response.body.error.fields).toEqual({ 'sites.0.note': 'must be at most 500 characters' });
+    const list = (await as('viewer').get('/api/enzymes').expect(200)).body;
+    expect(list.rows.some((row: { name: string }) => row.name === name)).toBe(false);
+  });
+
   it('returns 400 naming a site that does not match the sequence, and writes nothing', async () => {
     const name = uniqueName('Mismatched');
     const response = await as('biologist')

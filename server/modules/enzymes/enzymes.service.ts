@@ -102,7 +102,7 @@ export async function createEnzyme(dataSource: DataSource, actorId: number, inpu
           residue: site.residue,
           role: site.role,
           expectedPka: site.expectedPka ?? null,
-          note: null,
+          note: site.note ?? null,
         }),
       ),
     );

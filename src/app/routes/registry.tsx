@@ -7,13 +7,14 @@ import { paths } from '@/config/paths';
 import { useMe } from '@/features/auth/api/get-me';
 import { useEnergyUnit } from '@/features/auth/api/update-preferences';
 import { EnergyUnitToggle } from '@/features/auth/components/energy-unit-toggle';
+import { ExportButtons } from '@/features/imports/components/export-buttons';
 import { useCampaignChoices } from '@/features/registry/api/get-campaign-choices';
 import { ColumnPicker } from '@/features/registry/components/column-picker';
 import { CopyLinkButton } from '@/features/registry/components/copy-link-button';
 import { RegistryFilterBar } from '@/features/registry/components/registry-filter-bar';
 import { RoleLegend } from '@/features/registry/components/role-legend';
 import { VariantGrid } from '@/features/registry/components/variant-grid';
-import { parseRegistryView, registryViewSearch, type RegistryView } from '@/features/registry/registry-view';
+import { parseRegistryView, registryViewSearch, variantListQuery, type RegistryView } from '@/features/registry/registry-view';
 import { roleStyle } from '@/features/sequence-map/role-style';
 
 export default function RegistryRoute() {
@@ -33,10 +34,18 @@ export default function RegistryRoute() {
     <div className="space-y-4">
       <PageHeader
         title="Registry"
-        description="Every variant with its kinetics against the parent measured under matched conditions. Filters, sort and columns are part of the address, so a link shows a colleague the same view."
+        description={
+          // Narrower than the header's default, so the unit, export and register controls stay beside it at 1280 px.
+          <span className="block max-w-2xl">
+            Every variant with its kinetics against the parent measured under matched conditions. Filters, sort and columns are part of the
+            address, so a link shows a colleague the same view.
+          </span>
+        }
         actions={
-          <div className="flex items-center gap-3">
+          <div className="flex flex-wrap items-center gap-3">
             <EnergyUnitToggle />
+            {/* Reading is enough to export (the server asks only for `read`), so every role gets the files. */}
+            <ExportButtons query={variantListQuery(view.filters, view.sort)} />
             {mayRegister && (
               <Link
                 to={paths.registerVariant.href(view.filters.campaignId)}

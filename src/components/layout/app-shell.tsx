@@ -1,9 +1,10 @@
-import { NavLink, Outlet, useNavigate } from 'react-router-dom';
-import { can, roleLabels, type Action } from '@shared/auth/permissions';
+import { Link, NavLink, Outlet, useNavigate } from 'react-router-dom';
+import { can, type Action } from '@shared/auth/permissions';
 import type { SessionUserDto } from '@shared/schemas/auth';
 import { BrandMark } from '@/components/ui/brand-mark';
 import { paths } from '@/config/paths';
 import { useSignOut } from '@/features/auth/api/sign-out';
+import { AccountMenu } from './account-menu';
 
 interface NavItem {
   to: string;
@@ -23,7 +24,6 @@ const navigation: NavItem[] = [
   { to: paths.digests.href(), label: 'Digests', action: 'read' },
   { to: paths.outbox.href(), label: 'Outbox', action: 'users:manage' },
   { to: paths.adminUsers.href(), label: 'Admin', action: 'users:manage' },
-  { to: paths.about.href(), label: 'About', action: 'read' },
 ];
 
 export function AppShell({ user }: { user: SessionUserDto }) {
@@ -40,12 +40,13 @@ export function AppShell({ user }: { user: SessionUserDto }) {
         Skip to content
       </a>
       <header className="bg-lagoon-900 text-paper-100">
-        <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-8 gap-y-2 px-4 py-2.5">
+        {/* One line from 1280 px; narrower, the pages move to a second line of their own under the name and account. */}
+        <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-2.5">
           <NavLink to={paths.home.href()} className="flex items-center gap-2 text-lg font-semibold tracking-tight text-white">
             <BrandMark />
             Kcatalog
           </NavLink>
-          <nav aria-label="Main" className="flex flex-1 flex-wrap gap-1">
+          <nav aria-label="Main" className="order-last flex w-full flex-wrap gap-1 xl:order-none xl:w-auto xl:flex-1">
             {navigation
               .filter((item) => can(user.role, item.action))
               .map((item) => (
@@ -55,21 +56,15 @@ export function AppShell({ user }: { user: SessionUserDto }) {
                   // Home is a prefix of every path; it is current only on itself.
                   end={item.to === paths.home.href()}
                   className={({ isActive }) =>
-                    `rounded-md px-3 py-1.5 text-sm font-medium ${isActive ? 'bg-lagoon-700 text-white' : 'text-lagoon-100 hover:bg-lagoon-800 hover:text-white'}`
+                    `rounded-md px-2.5 py-1.5 text-sm font-medium ${isActive ? 'bg-lagoon-700 text-white' : 'text-lagoon-100 hover:bg-lagoon-800 hover:text-white'}`
                   }
                 >
                   {item.label}
                 </NavLink>
               ))}
           </nav>
-          <div className="flex items-center gap-3 text-sm">
-            <span>
-              <span className="font-medium text-white">{user.name}</span>{' '}
-              <span className="rounded bg-lagoon-700 px-1.5 py-0.5 text-xs uppercase tracking-wide text-lagoon-100">{roleLabels[user.role]}</span>
-            </span>
-            <NavLink to={paths.changePassword.href()} className="text-lagoon-100 underline-offset-2 hover:underline">
-              Password
-            </NavLink>
+          <div className="ml-auto flex items-center gap-2 text-sm">
+            <AccountMenu user={user} />
             <button type="button" onClick={handleSignOut} className="rounded-md border border-lagoon-600 px-2.5 py-1 text-lagoon-100 hover:bg-lagoon-800">
               Sign out
             </button>
@@ -80,7 +75,10 @@ export function AppShell({ user }: { user: SessionUserDto }) {
         <Outlet />
       </main>
       <footer className="border-t border-paper-200 py-3 text-center text-xs text-ink-500">
-        For research use only. Fitted values are estimates; the scientist decides.
+        For research use only. Fitted values are estimates; the scientist decides.{' '}
+        <Link to={paths.about.href()} className="font-medium text-lagoon-700 underline underline-offset-2 hover:text-lagoon-900">
+          About Kcatalog
+        </Link>
       </footer>
     </div>
   );

@@ -54,6 +54,9 @@ export const alwaysVisibleColumn: RegistryColumnId = 'label';
 /** HGVS repeats the label in a longer notation; it is there for those who want it. */
 export const defaultVisibleColumns: readonly RegistryColumnId[] = registryColumnIds.filter((id) => id !== 'hgvs');
 
+/** Rows per grid block, and so per request of the list API: the first screenful and a few screens more. */
+export const registryBlockSize = 100;
+
 /** The list API's own default: most recently changed first. */
 export const defaultSort: RegistrySort = { key: 'updated', order: 'desc' };
 
@@ -163,15 +166,14 @@ export function registryViewSearch(view: RegistryView): string {
   return search.toString();
 }
 
+/** The filters and sort of a view as `GET /api/variants` parameters, without a page: what an export of the view takes. */
+export function variantListQuery(filters: RegistryFilters, sort: RegistrySort): Record<string, string> {
+  return { ...Object.fromEntries(filterEntries(filters)), sort: sort.key, order: sort.order };
+}
+
 /** Query parameters of one page of `GET /api/variants` for a view. */
 export function variantListParams(filters: RegistryFilters, sort: RegistrySort, page: number, pageSize: number): Record<string, string> {
-  return {
-    ...Object.fromEntries(filterEntries(filters)),
-    sort: sort.key,
-    order: sort.order,
-    page: String(page),
-    pageSize: String(pageSize),
-  };
+  return { ...variantListQuery(filters, sort), page: String(page), pageSize: String(pageSize) };
 }
 
 /** Whether any filter is set. */

@@ -152,6 +152,17 @@ describe('catalyticSiteInput', () => {
       expect(catalyticSiteInput.parse({ position: 1, residue: 'M', role }).role).toBe(role);
     }
   });
+
+  it('takes an optional note, trimmed, with a blank note as none, and refuses one over 500 characters', () => {
+    const site = { position: 1, residue: 'M', role: 'other' };
+    expect(catalyticSiteInput.parse({ ...site, note: '  start codon  ' }).note).toBe('start codon');
+    expect(catalyticSiteInput.parse({ ...site, note: '   ' }).note).toBeNull();
+    expect(catalyticSiteInput.parse({ ...site, note: null }).note).toBeNull();
+    expect(catalyticSiteInput.parse(site).note).toBeUndefined();
+    expect(catalyticSiteInput.parse({ ...site, note: ` ${'n'.repeat(500)} ` }).note).toHaveLength(500);
+    expect(fieldsOf(catalyticSiteInput, { ...site, note: 'n'.repeat(501) })).toEqual({ note: 'must be at most 500 characters' });
+    expect(fieldsOf(catalyticSiteInput, { ...site, note: 7 })).toEqual({ note: 'must be text or null' });
+  });
 });
 
 describe('catalyticSiteProblem', () => {

@@ -62,6 +62,9 @@ export function SiteRowsEditor({ control, register, watch, errors, sequence, onF
                 Remove
               </Button>
             </div>
+            <div className="mt-3">
+              <TextField label="Note (optional)" autoComplete="off" error={rowErrors?.note?.message} {...register(`sites.${index}.note`)} />
+            </div>
             {check.kind === 'matches' && (
               <p className="mt-2 text-sm text-signal-fine" aria-live="polite">
                 <span aria-hidden>✓ </span>

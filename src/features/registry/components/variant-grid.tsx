@@ -26,6 +26,7 @@ import {
   alwaysVisibleColumn,
   defaultSort,
   hasFilters,
+  registryBlockSize,
   registryColumnIds,
   variantListParams,
   type RegistryColumnId,
@@ -43,8 +44,6 @@ ModuleRegistry.registerModules([InfiniteRowModelModule, CellStyleModule, ColumnA
 
 type Row = VariantListRowDto;
 
-/** Rows per request: one grid block is one page of the list API. */
-const BLOCK_SIZE = 100;
 /** Rows drawn beyond the visible ones, above and below. */
 const ROW_BUFFER = 4;
 /** Blocks kept in memory (2,000 rows); older ones are fetched again when scrolled back to. */
@@ -170,19 +169,14 @@ export function VariantGrid({ view, energyUnit, roleStyles, onSortChange, toolba
   const [initialView] = useState(view);
   const columnDefs = useMemo(() => columnDefinitions(energyUnit, roleStyles, initialView), [energyUnit, roleStyles, initialView]);
 
-  // The grid asks for its first block only once it has set itself up; asking at mount saves that time.
-  useEffect(() => {
-    void queryClient.prefetchQuery(getVariantPageQueryOptions(variantListParams(initialView.filters, initialView.sort, 1, BLOCK_SIZE)));
-  }, [queryClient, initialView]);
-
   const filtersKey = JSON.stringify(view.filters);
   const datasource = useMemo<IDatasource>(() => {
     const filters = JSON.parse(filtersKey) as RegistryFilters;
     return {
       getRows: (params) => {
         if (params.startRow === 0) setLoad({ kind: 'loading' });
-        const page = Math.floor(params.startRow / BLOCK_SIZE) + 1;
-        const query = getVariantPageQueryOptions(variantListParams(filters, sortFromModel(params.sortModel), page, BLOCK_SIZE));
+        const page = Math.floor(params.startRow / registryBlockSize) + 1;
+        const query = getVariantPageQueryOptions(variantListParams(filters, sortFromModel(params.sortModel), page, registryBlockSize));
         queryClient.fetchQuery(query).then(
           (result) => {
             params.successCallback(result.rows, result.total);
@@ -247,9 +241,9 @@ export function VariantGrid({ view, energyUnit, roleStyles, onSortChange, toolba
           theme={registryGridTheme}
           rowModelType="infinite"
           datasource={datasource}
-          cacheBlockSize={BLOCK_SIZE}
+          cacheBlockSize={registryBlockSize}
           maxBlocksInCache={MAX_BLOCKS_IN_CACHE}
-          infiniteInitialRowCount={BLOCK_SIZE}
+          infiniteInitialRowCount={registryBlockSize}
           getRowId={rowId}
           columnDefs={columnDefs}
           defaultColDef={defaultColDef}

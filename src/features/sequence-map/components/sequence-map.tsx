@@ -7,6 +7,8 @@ export interface SequenceMapSite {
   position: number;
   role: CatalyticRole;
   expectedPka?: number | null;
+  /** What the annotator wrote about the residue; shown when it is pointed at. */
+  note?: string | null;
 }
 
 export interface SequenceMapProps {
@@ -33,6 +35,7 @@ interface ResidueDetails {
   residue: string;
   roles: CatalyticRole[];
   expectedPka: number | null;
+  notes: readonly string[];
   mutation?: { from: string; to: string };
   variants: readonly string[];
 }
@@ -89,6 +92,12 @@ export function SequenceMap({
     () => new Map(sites.filter((site) => site.expectedPka !== null && site.expectedPka !== undefined).map((site) => [site.position, site.expectedPka!])),
     [sites],
   );
+  // A residue annotated in two roles may carry a note for each.
+  const notesByPosition = useMemo(() => {
+    const map = new Map<number, string[]>();
+    for (const site of sites) if (site.note) map.set(site.position, [...(map.get(site.position) ?? []), site.note]);
+    return map;
+  }, [sites]);
   const mutationByPosition = useMemo(() => new Map(mutations.map((mutation) => [mutation.position, mutation])), [mutations]);
 
   const lineLength = blockSize * blocksPerLine;
@@ -108,6 +117,7 @@ export function SequenceMap({
           residue: sequence[active - 1],
           roles: rolesByPosition.get(active) ?? [],
           expectedPka: pkaByPosition.get(active) ?? null,
+          notes: notesByPosition.get(active) ?? [],
           mutation: mutationByPosition.get(active),
           variants: variantsByPosition?.get(active) ?? [],
         };
@@ -174,6 +184,7 @@ export function SequenceMap({
             <span className="text-ink-600">({aminoAcidFromOneLetter(details.residue)?.name ?? 'unknown residue'})</span>
             {details.roles.length > 0 && <> · {details.roles.map((role) => roleStyle[role].label).join(', ')}</>}
             {details.expectedPka !== null && <> · expected pKa {details.expectedPka.toFixed(1)}</>}
+            {details.notes.length > 0 && <> · <span className="text-ink-700">{details.notes.join('; ')}</span></>}
             {details.mutation && (
               <>
                 {' '}

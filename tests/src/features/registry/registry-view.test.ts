@@ -6,6 +6,7 @@ import {
   parseRegistryView,
   registryViewSearch,
   variantListParams,
+  variantListQuery,
   type RegistryView,
 } from '@/features/registry/registry-view';
 
@@ -91,6 +92,18 @@ describe('variantListParams', () => {
       order: 'desc',
       page: '3',
       pageSize: '100',
+    });
+  });
+});
+
+describe('variantListQuery', () => {
+  it('gives the view’s filters and sort without a page, as an export of the whole view takes them', () => {
+    expect(variantListQuery({ role: 'electrostatic', minFoldChange: 1, status: ['characterized', 'purified'] }, { key: 'ddg', order: 'asc' })).toEqual({
+      role: 'electrostatic',
+      status: 'characterized,purified',
+      minFoldChange: '1',
+      sort: 'ddg',
+      order: 'asc',
     });
   });
 });
