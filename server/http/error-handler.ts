@@ -33,6 +33,11 @@ export const errorHandler: ErrorRequestHandler = (error: unknown, req, res, _nex
     res.status(413).json({ error: { code: 'payload_too_large', message: 'The request body is too large.' } });
     return;
   }
+  if (parserError?.status === 404) {
+    // A missing file of the built client (serve-static), e.g. a chunk of an older build.
+    res.status(404).json({ error: { code: 'not_found', message: `No file ${req.originalUrl}.` } });
+    return;
+  }
   if (parserError?.expose && parserError.status && parserError.status < 500) {
     res.status(parserError.status).json({ error: { code: 'bad_request', message: 'The request could not be read.' } });
     return;
