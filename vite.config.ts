@@ -33,6 +33,9 @@ export default defineConfig({
           include: ['tests/**/*.test.ts', 'tests/**/*.test.tsx'],
           exclude: ['tests/e2e/**', 'node_modules/**'],
           environment: 'node',
+          // Every file opens its own database, so files need no module isolation; sharing the module cache
+          // saves loading the server and TypeORM once per file (about a third of the suite's CPU time).
+          isolate: false,
           testTimeout: 20_000,
         },
       },
