@@ -532,6 +532,17 @@ describe('committing', () => {
     expect(partial.status).toBe('committed');
     expect(partial.counts).toEqual({ new: 9999, updated: 0, unchanged: 0, invalid: 1 });
     expect(await count(`SELECT id FROM measurements WHERE variant_id = ?`, [campaign.parentVariantId])).toBe(9999);
+    // Written in batches: each row's assay holds that row's measurement, in row order, and both are audited.
+    const written = await testApp.dataSource.query(
+      `SELECT a.assay_date AS day, m.kcat FROM assays a JOIN measurements m ON m.assay_id = a.id WHERE a.variant_id = ? ORDER BY a.id, m.id`,
+      [campaign.parentVariantId],
+    );
+    const rowsWritten = Array.from({ length: 10_000 }, (_, index) => ({ day: `2026-0${1 + (index % 9)}-1${index % 10}`, kcat: 10 + (index % 7) }));
+    expect(written).toEqual(rowsWritten.filter((_, index) => index + 2 !== 9999));
+    const audited = `SELECT e.id FROM audit_events e JOIN measurements m ON m.id = e.entity_id AND json_extract(e.after, '$.assayId') = m.assay_id
+                      WHERE e.entity_type = 'measurement' AND e.action = 'create' AND m.variant_id = ?`;
+    expect(await count(audited, [campaign.parentVariantId])).toBe(9999);
+    expect(await count(`SELECT id FROM audit_events WHERE campaign_id = ? AND entity_type = 'assay' AND action = 'create'`, [campaign.id])).toBe(9999);
     expect(partial.rejectedUrl).toBe(`/api/imports/${job.id}/rejected.xlsx`);
     const rejected = await kineticist.agent.get(partial.rejectedUrl!).buffer(true).parse(binary).expect(200);
     const sheets = await readWorkbook(rejected.body as Buffer);

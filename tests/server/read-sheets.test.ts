@@ -1,6 +1,7 @@
+import { createHash } from 'node:crypto';
 import ExcelJS from 'exceljs';
 import { describe, expect, it } from 'vitest';
-import { checkUpload } from '@server/modules/imports/check-upload';
+import { checkUpload, reopenUpload } from '@server/modules/imports/check-upload';
 import { CellFault, readSheet, surveySheets } from '@server/modules/imports/read-sheets';
 import { workbookSheetNames } from '@server/modules/imports/workbook-sheet-names';
 import { workbookBuffer } from '@server/modules/exports/spreadsheet-writer';
@@ -44,6 +45,18 @@ describe('reading workbooks', () => {
     expect(cells[2]).toEqual(new CellFault('holds the spreadsheet error #DIV/0!'));
     expect((cells[3] as CellFault).message).toMatch(/formula without a stored result/);
     expect(cells[4]).toBe('Ser112Ala');
+  });
+});
+
+describe('reopenUpload', () => {
+  it('gives the upload check’s result for the bytes stored under the hash, and checks other bytes in full again', async () => {
+    const buffer = await workbookBuffer([
+      { name: 'Measurements', headers: ['a'], rows: [['x']] },
+      { name: 'Points', headers: ['a'], rows: [] },
+    ]);
+    const sha256 = createHash('sha256').update(buffer).digest('hex');
+    expect(await reopenUpload({ originalName: 'sheet.xlsx', buffer }, sha256)).toEqual(await checked(buffer));
+    await expect(reopenUpload({ originalName: 'sheet.xlsx', buffer: Buffer.from('no workbook') }, sha256)).rejects.toThrow(/is not an Excel workbook/);
   });
 });
 

@@ -185,6 +185,11 @@ export async function loadStoredAssays(manager: EntityManager, variantIds: reado
   return byKey;
 }
 
+// A module function rather than a closure per row, as concentrationInput.
+function molar(value: number | null): { value: number; unit: 'M' } | null {
+  return value === null ? null : { value, unit: 'M' };
+}
+
 /**
  * Fills the conditions a sheet does not map from the stored assay, so that an import changes only what it
  * has columns for.
@@ -194,7 +199,6 @@ export async function loadStoredAssays(manager: EntityManager, variantIds: reado
  * @param reader the row (which fields are mapped)
  */
 export function keepUnmappedConditions(input: Record<string, unknown>, stored: StoredAssay, reader: RowReader): void {
-  const molar = (value: number | null) => (value === null ? null : { value, unit: 'M' });
   if (!reader.has('bufferName') && !reader.has('bufferConcentration')) {
     input.buffer = stored.buffer_name === null ? null : { name: stored.buffer_name, concentration: molar(stored.buffer_molar) };
   }

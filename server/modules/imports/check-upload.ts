@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import { extname } from 'node:path';
 import { maxImportBytes, maxUncompressedWorkbookBytes } from '@shared/schemas/import';
 import { HttpError } from '../../http/errors';
@@ -57,20 +58,39 @@ export async function checkUpload(file: { originalName: string; buffer: Buffer }
   if (extension === '.xlsx') {
     if (looksCompound) throw refuse('it is a legacy .xls workbook or a password-protected one; save it as an .xlsx workbook without a password');
     if (!looksZip) throw refuse('it is named .xlsx but is not an Excel workbook (its content is no ZIP package)');
-    return { format: 'xlsx', buffer, sheetNames: await checkWorkbookPackage(buffer) };
+    return { format: 'xlsx', buffer, sheetNames: await checkWorkbookPackage(buffer, true) };
   }
   if (looksZip || looksCompound) throw refuse('it is named .csv but holds a workbook; name it .xlsx or save the sheet as CSV');
   return { format: 'csv', buffer, text: decodeCsv(buffer) };
 }
 
-async function checkWorkbookPackage(buffer: Buffer): Promise<Map<number, string>> {
+/**
+ * An upload read back from storage to work on it. When its bytes still hash to the SHA-256 recorded at
+ * upload, they are the very bytes {@link checkUpload} passed, so a workbook's parts are not all inflated a
+ * second time (only the parts that name its sheets are read); any other file is checked in full again.
+ *
+ * @param file the original name and the stored bytes
+ * @param sha256 the SHA-256 (hex) the file was stored under
+ * @throws {HttpError} 400 on `file`, saying what is wrong
+ * @returns as {@link checkUpload}
+ */
+export async function reopenUpload(file: { originalName: string; buffer: Buffer }, sha256: string): Promise<CheckedUpload> {
+  const workbook = extname(file.originalName).toLowerCase() === '.xlsx';
+  if (!workbook || createHash('sha256').update(file.buffer).digest('hex') !== sha256) return checkUpload(file);
+  return { format: 'xlsx', buffer: file.buffer, sheetNames: await checkWorkbookPackage(file.buffer, false) };
+}
+
+const NAMING_PARTS = [CONTENT_TYPES_PART, WORKBOOK_PART, WORKBOOK_RELATIONSHIPS_PART];
+
+async function checkWorkbookPackage(buffer: Buffer, inflateEveryPart: boolean): Promise<Map<number, string>> {
   try {
     const entries = readZipCentralDirectory(buffer, maxUncompressedWorkbookBytes);
     const names = new Set(entries.map((entry) => entry.name));
     if (!names.has(CONTENT_TYPES_PART) || !names.has(WORKBOOK_PART)) {
       throw new ZipRefusal('it is a ZIP archive but not an Excel workbook (it has no xl/workbook.xml)');
     }
-    const kept = await verifyInflatedSizes(buffer, entries, [CONTENT_TYPES_PART, WORKBOOK_PART, WORKBOOK_RELATIONSHIPS_PART]);
+    const inflated = inflateEveryPart ? entries : entries.filter((entry) => NAMING_PARTS.includes(entry.name));
+    const kept = await verifyInflatedSizes(buffer, inflated, NAMING_PARTS);
     const contentTypes = kept.get(CONTENT_TYPES_PART)?.toString('utf8') ?? '';
     if (contentTypes.includes(MACRO_WORKBOOK_CONTENT_TYPE)) throw new ZipRefusal('it is a macro-enabled workbook; save it as a plain .xlsx workbook');
     if (!contentTypes.includes(WORKBOOK_CONTENT_TYPE)) throw new ZipRefusal('it is a ZIP package but not an .xlsx workbook');

@@ -22,7 +22,7 @@ import { Attachment } from '../attachments/attachment.entity';
 import { cleanFileName } from '../attachments/attachments.service';
 import { recordAudit } from '../audit/record-audit';
 import { User } from '../users/user.entity';
-import { checkUpload, importMediaTypes, type CheckedUpload } from './check-upload';
+import { checkUpload, importMediaTypes, reopenUpload, type CheckedUpload } from './check-upload';
 import { ImportJob } from './import-job.entity';
 import { ImportLookups } from './import-lookups';
 import { measurementImport } from './measurement-import';
@@ -302,7 +302,8 @@ export async function failInterruptedImports(dataSource: DataSource): Promise<vo
 }
 
 /**
- * The original file of a job, for the rejected-rows spreadsheet and the background work.
+ * The original file of a job, for the rejected-rows spreadsheet and the background work: the stored bytes,
+ * checked again unless they are the bytes that passed the upload's check.
  *
  * @param storage data source and data folder
  * @param job the job
@@ -312,7 +313,7 @@ export async function loadUpload(storage: ImportStorage, job: ImportJob): Promis
   const attachment = job.attachmentId === null ? null : await storage.dataSource.getRepository(Attachment).findOneBy({ id: job.attachmentId });
   if (!attachment) throw notFound('The imported file');
   const buffer = await readFile(resolve(storage.dataDir, attachment.storedPath));
-  return checkUpload({ originalName: job.fileName, buffer });
+  return reopenUpload({ originalName: job.fileName, buffer }, attachment.sha256);
 }
 
 /**

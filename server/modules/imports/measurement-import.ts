@@ -4,6 +4,7 @@ import type { ImportPreviewRowDto } from '@shared/schemas/import';
 import { sqliteFromDate } from '../../sqlite-datetime';
 import { assayConditionColumns, ZERO_CELSIUS_KELVIN } from '../assays/assay-conditions';
 import { Assay } from '../assays/assay.entity';
+import type { AuditEntry } from '../audit/record-audit';
 import { recomputeVariantSummaries } from '../comparisons/variant-summary';
 import { measurementAuditType, measurementSnapshot } from '../measurements/measurement-dto';
 import { Measurement } from '../measurements/measurement.entity';
@@ -21,6 +22,7 @@ import {
 } from './assay-rows';
 import type { VariantInfo, VariantLookup } from './import-lookups';
 import { insertAuditEvents, insertEntities } from './insert-rows';
+import { certainMeasurementInput } from './measurement-input';
 import { issuesToProblems, RowReader } from './row-reader';
 import { invalidUnit, yieldEvery, type ImportHandler } from './run-import';
 import { sameNumber, sameText } from './same-values';
@@ -145,9 +147,13 @@ export function measurementImport(options: HandlerOptions): ImportHandler<Measur
       const storedAssay = storedAssays.get(key)?.[occurrence] ?? null;
       if (storedAssay) keepUnmappedConditions(body, storedAssay, reader);
 
-      const parsed = createMeasurementInput.safeParse(body);
-      if (!parsed.success) return invalidUnit([row], issuesToProblems(parsed.error.issues, fieldOfPath, row));
-      const input = withoutDerivedSpecificity(parsed.data);
+      let parsed = certainMeasurementInput(body);
+      if (parsed === null) {
+        const checked = createMeasurementInput.safeParse(body);
+        if (!checked.success) return invalidUnit([row], issuesToProblems(checked.error.issues, fieldOfPath, row));
+        parsed = checked.data;
+      }
+      const input = withoutDerivedSpecificity(parsed);
       const assayColumns = assayConditionColumns(input);
       assayColumns.replicateCount = input.replicateCount ?? 1;
       // Built once here and written as is: the same columns POST /api/measurements would store.
@@ -181,7 +187,7 @@ export function measurementImport(options: HandlerOptions): ImportHandler<Measur
         created.map((plan) => Object.assign(plan.assayColumns, { variantId: plan.variant.id, operatorId: actorId, sUnit: null, vUnit: null, createdById: actorId })),
         now,
       );
-      const events: Parameters<typeof insertAuditEvents>[1][number][] = [];
+      const events: AuditEntry[] = [];
       const measurementRows: Partial<Measurement>[] = [];
       const owners: { plan: MeasurementPlan; assayId: number }[] = [];
       created.forEach((plan, index) => {

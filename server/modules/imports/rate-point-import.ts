@@ -7,6 +7,7 @@ import { assayConditionColumns, ZERO_CELSIUS_KELVIN } from '../assays/assay-cond
 import { Assay } from '../assays/assay.entity';
 import { fittedMeasurementColumns, runFit } from '../assays/assays.service';
 import { RatePoint } from '../assays/rate-point.entity';
+import type { AuditEntry } from '../audit/record-audit';
 import { recomputeVariantSummaries } from '../comparisons/variant-summary';
 import { measurementAuditType, measurementSnapshot } from '../measurements/measurement-dto';
 import { Measurement } from '../measurements/measurement.entity';
@@ -262,7 +263,7 @@ export function ratePointImport(options: HandlerOptions): ImportHandler<AssayGro
       );
       const points: Partial<RatePoint>[] = [];
       const measurements: Partial<Measurement>[] = [];
-      const events: Parameters<typeof insertAuditEvents>[1][number][] = [];
+      const events: AuditEntry[] = [];
       plans.forEach((plan, index) => {
         const assayId = assayIds[index];
         for (const point of plan.input.points) {

@@ -55,7 +55,8 @@ function tooManyRows(sheet: string): HttpError {
 export async function surveySheets(upload: CheckedUpload, csvSheetName: string): Promise<SheetSurvey[]> {
   const surveys: SheetSurvey[] = [];
   let current: SheetSurvey | null = null;
-  await readRows(upload, csvSheetName, {
+  // No cells are kept: the survey only counts rows.
+  await readRows(upload, csvSheetName, [], {
     onSheet: (name) => {
       current = { name, headers: [], rowCount: 0 };
       surveys.push(current);
@@ -94,7 +95,7 @@ export async function readSheet(
   let found = false;
   let headers: string[] = [];
   const rows: SheetRow[] = [];
-  await readRows(upload, sheetName, {
+  await readRows(upload, sheetName, columns, {
     onSheet: (name) => {
       const wanted = upload.format === 'csv' || name === sheetName;
       found ||= wanted;
@@ -105,13 +106,7 @@ export async function readSheet(
     },
     onRow: (row) => {
       if (rows.length >= maxImportRows) throw tooManyRows(sheetName);
-      if (columns === undefined) {
-        rows.push(row);
-        return;
-      }
-      const kept: CellValue[] = [];
-      for (const column of columns) kept[column] = row.cells[column] ?? null;
-      rows.push({ rowNumber: row.rowNumber, cells: kept });
+      rows.push(row);
     },
   });
   if (!found) throw new HttpError(400, 'validation_error', `The file has no sheet named ${sheetName}.`, { sheet: `no sheet is named ${sheetName}` });
@@ -122,12 +117,13 @@ interface RowVisitor {
   /** Return false to skip the sheet's rows. */
   onSheet: (name: string) => boolean;
   onHeader: (headers: string[]) => void;
+  /** A row with content, with the cells of the columns asked for (all when none were named). */
   onRow: (row: SheetRow) => void;
 }
 
-async function readRows(upload: CheckedUpload, csvSheetName: string, visitor: RowVisitor): Promise<void> {
+async function readRows(upload: CheckedUpload, csvSheetName: string, columns: readonly number[] | undefined, visitor: RowVisitor): Promise<void> {
   if (upload.format === 'csv') {
-    readCsvRows(upload.text, csvSheetName, visitor);
+    readCsvRows(upload.text, csvSheetName, columns, visitor);
     return;
   }
   const reader = new ExcelJS.stream.xlsx.WorkbookReader(Readable.from(upload.buffer), READER_OPTIONS);
@@ -143,15 +139,14 @@ async function readRows(upload: CheckedUpload, csvSheetName: string, visitor: Ro
       const wanted = visitor.onSheet((part === null ? undefined : upload.sheetNames.get(part)) ?? sheet.name);
       let headerSeen = false;
       for await (const row of sheet) {
-        if (!wanted) continue;
-        const cells = excelCells(row.values);
-        if (!cells.some((cell) => cell !== null)) continue;
+        if (!wanted || !Array.isArray(row.values) || !hasExcelContent(row.values)) continue;
         if (!headerSeen) {
-          visitor.onHeader(cells.map(headerText));
+          visitor.onHeader(excelCells(row.values).map(headerText));
           headerSeen = true;
           continue;
         }
-        visitor.onRow({ rowNumber: row.number, cells });
+        // Only the columns asked for are converted: the rest of a wide sheet costs nothing a row.
+        visitor.onRow({ rowNumber: row.number, cells: columns === undefined ? excelCells(row.values) : excelCellsAt(row.values, columns) });
       }
     }
   } catch (error) {
@@ -161,7 +156,7 @@ async function readRows(upload: CheckedUpload, csvSheetName: string, visitor: Ro
   }
 }
 
-function readCsvRows(text: string, sheetName: string, visitor: RowVisitor): void {
+function readCsvRows(text: string, sheetName: string, columns: readonly number[] | undefined, visitor: RowVisitor): void {
   const parsed = Papa.parse<string[]>(text, { skipEmptyLines: false });
   const quoteError = parsed.errors.find((error) => error.type === 'Quotes');
   if (quoteError) {
@@ -179,16 +174,33 @@ function readCsvRows(text: string, sheetName: string, visitor: RowVisitor): void
       return;
     }
     // One CSV record is one spreadsheet row, even where a quoted field spans lines.
-    visitor.onRow({ rowNumber: index + 1, cells });
+    visitor.onRow({ rowNumber: index + 1, cells: columns === undefined ? cells : cellsAt(cells, columns) });
   });
 }
 
+// The cells of some columns, by 0-based column; a column past the row's end is empty.
+function cellsAt(cells: readonly CellValue[], columns: readonly number[]): CellValue[] {
+  const kept: CellValue[] = [];
+  for (const column of columns) kept[column] = cells[column] ?? null;
+  return kept;
+}
+
 // exceljs gives row.values 1-based (index 0 unused) and sparse.
-function excelCells(values: ExcelRow['values']): CellValue[] {
+function excelCells(values: readonly unknown[]): CellValue[] {
   const cells: CellValue[] = [];
-  if (!Array.isArray(values)) return cells;
   for (let index = 1; index < values.length; index += 1) cells.push(excelCell(values[index]));
   return cells;
+}
+
+function excelCellsAt(values: readonly unknown[], columns: readonly number[]): CellValue[] {
+  const kept: CellValue[] = [];
+  for (const column of columns) kept[column] = excelCell(values[column + 1]);
+  return kept;
+}
+
+function hasExcelContent(values: readonly unknown[]): boolean {
+  for (let index = 1; index < values.length; index += 1) if (excelCell(values[index]) !== null) return true;
+  return false;
 }
 
 function excelCell(value: unknown): CellValue {

@@ -4,6 +4,7 @@ import type { MutationSet } from '@shared/mutations/parse-mutations';
 import type { ImportPreviewRowDto } from '@shared/schemas/import';
 import { createVariantInput, type VariantStatus } from '@shared/schemas/variant';
 import { sqliteFromDate } from '../../sqlite-datetime';
+import type { AuditEntry } from '../audit/record-audit';
 import { Mutation } from '../variants/mutation.entity';
 import { Variant } from '../variants/variant.entity';
 import { variantAuditType, variantSnapshot } from '../variants/variants.service';
@@ -193,7 +194,7 @@ export function variantImport(options: HandlerOptions): ImportHandler<VariantUni
       await insertEntities(manager, Mutation, mutations, now);
       for (const [id, parent] of lineageFixes) await manager.query(`UPDATE variants SET parent_variant_id = ? WHERE id = ?`, [parent.id, id]);
 
-      const events: Parameters<typeof insertAuditEvents>[1][number][] = [];
+      const events: AuditEntry[] = [];
       created.forEach((plan, index) => {
         const variant = toInfo(plan, ids[index]);
         lookups.remember(variant);
