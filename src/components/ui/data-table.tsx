@@ -29,8 +29,8 @@ const variants: Record<Variant, { frame: string; head: string; headCell: string;
   wide: {
     frame: 'shadow-card',
     head: 'bg-lagoon-50 text-xs text-lagoon-900',
-    headCell: 'px-2.5 py-2.5',
-    cell: 'px-2.5 py-2',
+    headCell: 'px-2 py-2.5',
+    cell: 'px-2 py-2',
   },
 };
 
