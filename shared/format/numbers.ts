@@ -18,15 +18,26 @@ const minus = (text: string) => text.replace(/^-/, '−');
 
 const isNumber = (value: number | null | undefined): value is number => value !== null && value !== undefined && Number.isFinite(value);
 
-/** `toExponential` output (`1.23e-4`) as `1.23 × 10⁻⁴`. */
-function scientific(exponential: string): string {
-  const [mantissa, exponent] = exponential.split('e');
-  const power = Number(exponent)
-    .toString()
+/**
+ * A power of ten with its exponent in superscript figures, for axis labels and for values that share one
+ * power of ten with their error.
+ *
+ * @param exponent a whole number
+ * @returns e.g. `10⁻⁴`, `10⁰`, `10²¹`
+ * @example powerOfTen(-4) // '10⁻⁴'
+ */
+export function powerOfTen(exponent: number): string {
+  const figures = String(exponent)
     .split('')
     .map((character) => superscripts[character] ?? character)
     .join('');
-  return `${minus(mantissa)} × 10${power}`;
+  return `10${figures}`;
+}
+
+/** `toExponential` output (`1.23e-4`) as `1.23 × 10⁻⁴`. */
+function scientific(exponential: string): string {
+  const [mantissa, exponent] = exponential.split('e');
+  return `${minus(mantissa)} × ${powerOfTen(Number(exponent))}`;
 }
 
 /**

@@ -6,12 +6,14 @@
 export {
   energyIn,
   formatEnergy,
+  formatEnergyFigures,
   formatFoldChange,
   formatKcat,
   formatKcatOverKm,
   formatKm,
   formatNumber,
   formatPh,
+  powerOfTen,
 } from '@shared/format/numbers';
 
 export function formatDate(iso: string | null | undefined): string {

@@ -1,4 +1,4 @@
-import { formatNumber } from '@/lib/format';
+import { formatNumber, powerOfTen } from '@/lib/format';
 
 /** Km and its error in one unit, the one that keeps Km between 1 and 1000 where it can (M in, text out). */
 export function kmWithError(km: { value: number; se: number | null } | null): string {
@@ -6,9 +6,6 @@ export function kmWithError(km: { value: number; se: number | null } | null): st
   const [factor, unit] = km.value >= 1e-3 ? [1e3, 'mM'] : km.value >= 1e-6 ? [1e6, 'µM'] : [1e9, 'nM'];
   return `${formatNumber(km.value * factor)}${km.se === null ? '' : ` ± ${formatNumber(km.se * factor, 2)}`} ${unit}`;
 }
-
-const superscriptDigits = '⁰¹²³⁴⁵⁶⁷⁸⁹';
-const superscript = (exponent: number) => String(exponent).replace('-', '⁻').replace(/\d/g, (digit) => superscriptDigits[Number(digit)]);
 
 /**
  * A value with its standard error as the trade writes it: `0.849 ± 0.022`, or with a shared power of ten
@@ -23,7 +20,7 @@ export function withError(value: { value: number; se: number | null } | null, al
     return se === null ? formatNumber(value.value) : `${formatNumber(value.value)} ± ${se}`;
   }
   const scale = 10 ** exponent;
-  const power = exponent === 0 && !alwaysScientific ? '' : ` × 10${superscript(exponent)}`;
+  const power = exponent === 0 && !alwaysScientific ? '' : ` × ${powerOfTen(exponent)}`;
   const mantissa = (number: number) => (number / scale).toFixed(2).replace(/^-/, '−');
   return value.se === null ? `${mantissa(value.value)}${power}` : `(${mantissa(value.value)} ± ${mantissa(value.se)})${power}`;
 }

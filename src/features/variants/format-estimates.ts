@@ -1,4 +1,4 @@
-import { formatNumber } from '@/lib/format';
+import { formatNumber, powerOfTen } from '@/lib/format';
 
 /**
  * Estimates with their standard errors, both in the unit that suits the value (the error in the same
@@ -28,7 +28,7 @@ function withSe(value: number, se: number | null | undefined, unit: string): str
   if (value !== 0 && (magnitude < 0.01 || magnitude >= 10_000)) {
     const exponent = Math.floor(Math.log10(magnitude));
     const scale = 10 ** exponent;
-    const power = `10${superscript(exponent)}`;
+    const power = powerOfTen(exponent);
     if (!hasSe) return `${(value / scale).toPrecision(3)} × ${power}${suffix}`;
     const pair = roundedPair(value / scale, se / scale);
     return `(${pair.value} ± ${pair.se}) × ${power}${suffix}`;
@@ -72,7 +72,7 @@ export function formatKcatOverKmWithSe(estimate: { value: number; se?: number | 
   if (!estimate || !Number.isFinite(estimate.value) || estimate.value <= 0) return '—';
   const exponent = Math.floor(Math.log10(estimate.value));
   const scale = 10 ** exponent;
-  const power = `10${superscript(exponent)}`;
+  const power = powerOfTen(exponent);
   const se = estimate.se;
   const unit = withUnit ? ' M⁻¹ s⁻¹' : '';
   if (se === null || se === undefined || !Number.isFinite(se) || se <= 0) return `${(estimate.value / scale).toFixed(2)} × ${power}${unit}`;
@@ -84,13 +84,4 @@ export function formatKcatOverKmWithSe(estimate: { value: number; se?: number | 
 export function formatRatioWithSe(ratio: { value: number; se: number } | null | undefined): string {
   if (!ratio || !Number.isFinite(ratio.value)) return '—';
   return withSe(ratio.value, ratio.se, '');
-}
-
-const superscripts: Record<string, string> = { '-': '⁻', '0': '⁰', '1': '¹', '2': '²', '3': '³', '4': '⁴', '5': '⁵', '6': '⁶', '7': '⁷', '8': '⁸', '9': '⁹' };
-
-function superscript(exponent: number): string {
-  return String(exponent)
-    .split('')
-    .map((character) => superscripts[character] ?? character)
-    .join('');
 }

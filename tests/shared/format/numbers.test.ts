@@ -9,11 +9,26 @@ import {
   formatKm,
   formatNumber,
   formatPh,
+  powerOfTen,
 } from '../../../shared/format/numbers';
 
 // The minus sign is U+2212 and powers of ten use the Unicode superscript figures U+2070–U+2079 with
 // U+207B SUPERSCRIPT MINUS (Unicode Standard, Superscripts and Subscripts block); the written forms
 // below are worked by hand.
+
+describe('powerOfTen', () => {
+  it('writes the exponent in superscript figures with the superscript minus', () => {
+    // Superscript one, two and three are U+00B9, U+00B2, U+00B3 (Latin-1 Supplement); zero and four to nine are
+    // U+2070 and U+2074–U+2079, the minus U+207B (Unicode code charts, from memory).
+    expect(powerOfTen(0)).toBe('10\u2070');
+    expect(powerOfTen(2)).toBe('10\u00B2');
+    expect(powerOfTen(-4)).toBe('10\u207B\u2074');
+    expect(powerOfTen(21)).toBe('10\u00B2\u00B9');
+    expect(powerOfTen(-10)).toBe('10\u207B\u00B9\u2070');
+    expect(powerOfTen(3)).toBe('10\u00B3');
+    expect(powerOfTen(56789)).toBe('10\u2075\u2076\u2077\u2078\u2079');
+  });
+});
 
 describe('formatNumber', () => {
   it('keeps plain decimals from 0.01 up to 10,000, rounded to three significant figures', () => {

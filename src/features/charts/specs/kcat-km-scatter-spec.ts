@@ -1,4 +1,5 @@
 import type { TopLevelSpec } from 'vega-lite';
+import { powerOfTen } from '@/lib/format';
 import { DIFFUSION_LIMIT_APPROACH_PER_MOLAR_SECOND } from '@shared/kinetics/plausibility';
 import { chartColors, seriesStyle } from '../chart-theme';
 import { chartFrame } from './spec-parts';
@@ -29,9 +30,6 @@ const KM_UNITS = [
 const MAX_EXTENSION_DECADES = 6;
 /** More lines of equal kcat/Km than this, and only every other decade is drawn. */
 const MAX_ISO_LINES = 6;
-
-const superscriptDigits: Record<string, string> = { '-': '⁻', '0': '⁰', '1': '¹', '2': '²', '3': '³', '4': '⁴', '5': '⁵', '6': '⁶', '7': '⁷', '8': '⁸', '9': '⁹' };
-const powerOfTen = (exponent: number) => `10${String(exponent).split('').map((character) => superscriptDigits[character]).join('')}`;
 
 /** The Km unit that suits the median Km. */
 export function kmDisplayUnit(kmMolar: readonly number[]): (typeof KM_UNITS)[number] {

@@ -1,14 +1,12 @@
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import { createColumnHelper, getCoreRowModel, useReactTable } from '@tanstack/react-table';
 import { Link } from 'react-router-dom';
 import { importKindLabels, type ImportJobSummaryDto } from '@shared/schemas/import';
+import { DataTable } from '@/components/ui/data-table';
 import { paths } from '@/config/paths';
+import { formatDateTime } from '@/lib/format';
 import { ImportStatusBadge } from './import-status';
 
 const column = createColumnHelper<ImportJobSummaryDto>();
-
-function formatDateTime(iso: string): string {
-  return new Date(iso).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' });
-}
 
 const columns = [
   column.accessor('createdAt', { header: 'When', cell: (info) => <span className="whitespace-nowrap text-ink-600">{formatDateTime(info.getValue())}</span> }),
@@ -55,33 +53,5 @@ const columns = [
 /** Every import: who, when, what, and how it ended. */
 export function ImportHistory({ jobs }: { jobs: ImportJobSummaryDto[] }) {
   const table = useReactTable({ data: jobs, columns, getCoreRowModel: getCoreRowModel() });
-  return (
-    <div className="overflow-x-auto rounded-lg border border-paper-200 bg-white shadow-card">
-      <table className="min-w-full divide-y divide-paper-200 text-sm">
-        <caption className="sr-only">Import history, newest first</caption>
-        <thead className="bg-paper-50">
-          {table.getHeaderGroups().map((group) => (
-            <tr key={group.id}>
-              {group.headers.map((header) => (
-                <th key={header.id} scope="col" className="px-3 py-2 text-left font-semibold text-ink-700">
-                  {flexRender(header.column.columnDef.header, header.getContext())}
-                </th>
-              ))}
-            </tr>
-          ))}
-        </thead>
-        <tbody className="divide-y divide-paper-200">
-          {table.getRowModel().rows.map((row) => (
-            <tr key={row.id}>
-              {row.getVisibleCells().map((cell) => (
-                <td key={cell.id} className="px-3 py-2 align-top">
-                  {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                </td>
-              ))}
-            </tr>
-          ))}
-        </tbody>
-      </table>
-    </div>
-  );
+  return <DataTable table={table} caption="Import history, newest first" />;
 }

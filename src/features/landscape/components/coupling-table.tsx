@@ -2,15 +2,10 @@ import { Link } from 'react-router-dom';
 import type { EnergyUnit } from '@shared/schemas/auth';
 import type { CampaignCyclesDto } from '@shared/schemas/comparison';
 import { paths } from '@/config/paths';
-import { energyIn } from '@/lib/format';
+import { formatEnergyFigures } from '@/lib/format';
 
 /** Rows listed; the plot shows every cycle, the table the strongest couplings. */
 const MAX_ROWS = 25;
-
-/** `−2.53 ± 0.18` in the chosen unit; the unit is in the column header. */
-function energyText(kJPerMol: number, seKJPerMol: number, unit: EnergyUnit): string {
-  return `${energyIn(kJPerMol, unit).toFixed(2).replace(/^-/, '\u2212')} ± ${energyIn(seKJPerMol, unit).toFixed(2)}`;
-}
 
 /** The double-mutant cycles behind the additivity plot, largest coupling first, and the combinations without one. */
 export function CouplingTable({ cycles, unit }: { cycles: CampaignCyclesDto; unit: EnergyUnit }) {
@@ -43,9 +38,9 @@ export function CouplingTable({ cycles, unit }: { cycles: CampaignCyclesDto; uni
                 <td className="whitespace-nowrap py-1 pr-2 font-mono text-xs">
                   {cycle.a.label} + {cycle.b.label}
                 </td>
-                <td className="numeric whitespace-nowrap py-1 pr-2 font-mono">{energyText(energies.ddgAB.value, energies.ddgAB.se, unit)}</td>
-                <td className="numeric whitespace-nowrap py-1 pr-2 font-mono">{energyText(energies.predictedAdditive.value, energies.predictedAdditive.se, unit)}</td>
-                <td className="numeric whitespace-nowrap py-1 font-mono">{energyText(energies.coupling.kJPerMol.value, energies.coupling.kJPerMol.se, unit)}</td>
+                <td className="numeric whitespace-nowrap py-1 pr-2 font-mono">{formatEnergyFigures(energies.ddgAB.value, energies.ddgAB.se, unit)}</td>
+                <td className="numeric whitespace-nowrap py-1 pr-2 font-mono">{formatEnergyFigures(energies.predictedAdditive.value, energies.predictedAdditive.se, unit)}</td>
+                <td className="numeric whitespace-nowrap py-1 font-mono">{formatEnergyFigures(energies.coupling.kJPerMol.value, energies.coupling.kJPerMol.se, unit)}</td>
               </tr>
             );
           })}

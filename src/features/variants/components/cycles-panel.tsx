@@ -4,7 +4,7 @@ import type { EnergyUnit } from '@shared/schemas/auth';
 import type { CampaignCyclesDto, CycleDto, CycleEnergiesDto } from '@shared/schemas/comparison';
 import { EmptyState } from '@/components/ui/states';
 import { paths } from '@/config/paths';
-import { energyIn, formatPh } from '@/lib/format';
+import { formatEnergyFigures, formatPh } from '@/lib/format';
 import { KcatOverKmSymbol, KcatSymbol } from './rate-symbols';
 
 // A coupling energy within two standard errors of zero is read as additive (about 95 % for a normal
@@ -91,12 +91,6 @@ function CycleCard({ cycle, variantId, unit }: { cycle: CycleDto; variantId: num
   );
 }
 
-/** An energy ± SE without its unit, which the table's corner names. */
-function energyText(energy: { value: number; se: number }, unit: EnergyUnit): string {
-  const value = energyIn(energy.value, unit).toFixed(2).replace(/^-/, '−');
-  return `${value} ± ${energyIn(energy.se, unit).toFixed(2)}`;
-}
-
 function Corner({ corner, variantId }: { corner: { id: number; label: string }; variantId: number }) {
   if (corner.id === variantId) return <span className="rounded bg-ember-50 px-1 text-ember-700">{corner.label}</span>;
   return (
@@ -127,10 +121,10 @@ function EnergyRow({ name, energies, unit }: { name: ReactNode; energies: CycleE
       <th scope="row" className="py-1 pr-2 text-left font-normal">
         {name}
       </th>
-      <td className="numeric whitespace-nowrap py-1 pr-2 font-mono">{energyText(energies.predictedAdditive, unit)}</td>
-      <td className="numeric whitespace-nowrap py-1 pr-2 font-mono">{energyText(energies.ddgAB, unit)}</td>
+      <td className="numeric whitespace-nowrap py-1 pr-2 font-mono">{formatEnergyFigures(energies.predictedAdditive.value, energies.predictedAdditive.se, unit)}</td>
+      <td className="numeric whitespace-nowrap py-1 pr-2 font-mono">{formatEnergyFigures(energies.ddgAB.value, energies.ddgAB.se, unit)}</td>
       <td className="numeric py-1 font-mono">
-        <span className="whitespace-nowrap font-semibold">{energyText(coupling, unit)}</span>
+        <span className="whitespace-nowrap font-semibold">{formatEnergyFigures(coupling.value, coupling.se, unit)}</span>
         <span className="block font-sans text-xs text-ink-600">{reading}</span>
       </td>
     </tr>
