@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { convertUnit, type ConcentrationUnit } from '../kinetics/units';
 import type { MeasurementDto } from './measurement';
+import { finiteNumber } from './finite-number';
 
 /**
  * Units accepted at the edge. Every quantity is converted to SI-coherent units (M, M s⁻¹, s⁻¹, M⁻¹ s⁻¹, K)
@@ -161,8 +162,6 @@ export function toPerMolarPerSecond(value: number, unit: SpecificityUnitInput): 
   return time === 'min' ? convertUnit(perMolar, '1/min', '1/s') : perMolar;
 }
 
-// JSON has no NaN or Infinity, and zod 4's number refuses them too; the message covers both.
-const finiteNumber = () => z.number({ error: 'must be a finite number' });
 const positiveNumber = () => finiteNumber().positive('must be greater than 0');
 const nonNegativeNumber = () => finiteNumber().nonnegative('must be at least 0');
 

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { finiteNumber } from './finite-number';
 
 /** Most points one fit request may carry (a plate-reader export is far below this). */
 export const MAX_FIT_POINTS = 10_000;
@@ -6,7 +7,6 @@ export const MAX_FIT_POINTS = 10_000;
 const NUMBER_WORDS = ['zero', 'one', 'two', 'three', 'four'];
 
 // JSON has no NaN or Infinity, and zod 4's number refuses them too; the message covers both cases.
-const finiteNumber = () => z.number({ error: 'must be a finite number' });
 
 const ratePoint = z.object({
   s: finiteNumber().nonnegative('must be at least 0'),

@@ -10,6 +10,7 @@ import {
   type SpecificityUnitInput,
   type TurnoverUnitInput,
 } from './assay';
+import { finiteNumber } from './finite-number';
 
 export const phModels = ['bell', 'acid', 'base'] as const;
 export type PhModelName = (typeof phModels)[number];
@@ -51,7 +52,6 @@ export function phRateToSi(value: number, kind: PhRateKindName, unit: string): n
   return toMolarPerSecond(value, unit as RateUnitInput);
 }
 
-const finiteNumber = () => z.number({ error: 'must be a finite number' });
 
 /**
  * Body of POST /api/ph-profiles: a rate of one kind (kcat, kcat/Km or v0, in `unit`) against pH for one

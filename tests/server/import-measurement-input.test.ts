@@ -78,6 +78,8 @@ const invalidBodies: [string, Record<string, unknown>][] = [
   ['a negative Km', rowBody({ km: { value: -0.4, se: 0.03, unit: 'mM' } })],
   ['an infinite Km SE', rowBody({ km: { value: 0.4, se: Infinity, unit: 'mM' } })],
   ['a Km that is not a number', rowBody({ km: { value: Number.NaN, se: 0.03, unit: 'mM' } })],
+  ['a kcat too large for arithmetic on it', rowBody({ kcat: { value: 1e308, se: 30, unit: '1/min' } })],
+  ['a Km SE too small for arithmetic on it', rowBody({ km: { value: 0.4, se: 1e-300, unit: 'mM' } })],
   ['no kcat', rowBody({ kcat: null })],
   ['a kcat/Km in a turnover unit', rowBody({ kcatOverKm: { value: 13, se: 1, unit: '1/s' } })],
   ['Ki outside the substrate-inhibition model', rowBody({ ki: { value: 20, se: 2, unit: 'mM' } })],
@@ -115,7 +117,7 @@ describe('certainMeasurementInput', () => {
     // a rule added to the schema and not here fails this test instead of letting rows through.
     const random = seededRandom(20_261_201);
     const pool: unknown[] = [
-      null, undefined, 0, -1, 1, 0.5, 14, 14.01, 150, 151, -20, -21, 1000, 1001, 2.5, Number.NaN, Infinity, '', ' ', 'x', 's'.repeat(201),
+      null, undefined, 0, -1, 1, 0.5, 1e308, 1e-300, 14, 14.01, 150, 151, -20, -21, 1000, 1001, 2.5, Number.NaN, Infinity, '', ' ', 'x', 's'.repeat(201),
       '2026-02-30', '2026-01-31', 'mM', 'nmol', '1/s', 'hill', 'linear', 'continuous', true, [], {},
       { value: 5, se: 0.1, unit: '1/s' }, { value: 0.4, se: 0.03, unit: 'mM' }, { value: -1, unit: 'mM' }, { value: 10, unit: 'nM' },
       { value: 13, se: 1, unit: '1/(mM*s)' }, { min: 0, max: 5, unit: 'mM' }, { min: 5, max: 1, unit: 'mM' }, { name: 'MES', concentration: null },

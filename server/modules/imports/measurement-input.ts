@@ -10,6 +10,7 @@ import {
   type SpecificityUnitInput,
   type TurnoverUnitInput,
 } from '@shared/schemas/assay';
+import { withinMagnitude } from '@shared/schemas/finite-number';
 
 // The schema's lists, as sets for the per-row checks.
 const CONCENTRATION_UNITS: ReadonlySet<unknown> = new Set(concentrationUnits);
@@ -39,7 +40,9 @@ function objectAt(value: unknown): Body {
 }
 
 function numberFrom(value: unknown, lowest: number, inclusive: boolean, highest = Infinity): number {
-  if (typeof value !== 'number' || !Number.isFinite(value) || (inclusive ? value < lowest : value <= lowest) || value > highest) throw notCertain;
+  if (typeof value !== 'number' || !Number.isFinite(value) || !withinMagnitude(value) || (inclusive ? value < lowest : value <= lowest) || value > highest) {
+    throw notCertain;
+  }
   return value;
 }
 
