@@ -24,6 +24,7 @@ import { ConditionsFields } from './conditions-fields';
 import { ExcludePointDialog } from './exclude-point-dialog';
 import { FilePicker, fileProblem, formatBytes } from './file-picker';
 import { LiveFitBoundary } from './live-fit-boundary';
+import { PasteBlock } from './paste-block';
 import { PointGridEditor } from './point-grid-editor';
 import { SaveAgreement } from './save-agreement';
 import { VariantPicker } from './variant-picker';
@@ -226,37 +227,7 @@ export function AssayEntryWorkspace({ userId, initialVariantId, renderCharts }: 
             <SelectField label="[S] unit" options={sUnitOptions} error={errors.sUnit?.message} {...form.register('sUnit')} />
             <SelectField label="v₀ unit" options={vUnitOptions} error={errors.vUnit?.message} {...form.register('vUnit')} />
           </div>
-          <div className="space-y-1">
-            <label htmlFor="rate-paste" className="block text-sm font-medium text-ink-700">
-              Paste a block from a spreadsheet
-            </label>
-            <textarea
-              id="rate-paste"
-              rows={2}
-              placeholder={'[S] (mM)\tv0 (µM/min)\n0.05\t12.1'}
-              value={pasteText}
-              onChange={(event) => setPasteText(event.target.value)}
-              onPaste={(event) => {
-                event.preventDefault();
-                handlePasteArea(event.clipboardData.getData('text/plain'));
-              }}
-              className="block w-full rounded-md border border-paper-300 px-3 py-2 font-mono text-xs placeholder:text-ink-400 focus:border-lagoon-500 focus:outline-none focus:ring-2 focus:ring-lagoon-200"
-            />
-            {pasteText.trim() !== '' && (
-              <Button onClick={() => handlePasteArea(pasteText)} className="mt-1">
-                Put the block into the grid
-              </Button>
-            )}
-          </div>
-          {pasteReport && (
-            <Notice tone={pasteReport.problems.length > 0 ? 'caution' : 'info'} title={pasteReport.problems.length > 0 ? 'Part of the block could not be read' : 'Block read'}>
-              <ul className="list-disc pl-4">
-                {[...pasteReport.notes, ...pasteReport.problems].map((line) => (
-                  <li key={line}>{line}</li>
-                ))}
-              </ul>
-            </Notice>
-          )}
+          <PasteBlock id="rate-paste" placeholder={'[S] (mM)\tv0 (µM/min)\n0.05\t12.1'} text={pasteText} onTextChange={setPasteText} onRead={handlePasteArea} report={pasteReport} />
           <PointGridEditor
             state={grid}
             onChange={setGrid}

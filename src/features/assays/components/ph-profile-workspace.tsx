@@ -18,6 +18,7 @@ import { parsePastedBlock, phBlock, type ParsedBlock } from '../lib/parse-pasted
 import { phModelNames, phPreview, pkaCandidates, type FittedPka, type PhPreview } from '../lib/ph-preview';
 import { emptyGrid, gridFromBlock, gridPoints, setExclusion } from '../lib/point-grid';
 import { LiveFitBoundary } from './live-fit-boundary';
+import { PasteBlock } from './paste-block';
 import { PointGridEditor } from './point-grid-editor';
 import { VariantPicker } from './variant-picker';
 
@@ -213,37 +214,7 @@ export function PhProfileWorkspace({ initialVariantId, renderChart }: { initialV
             </h2>
             <p className="text-sm text-ink-500">One row per pH; replicate columns become more points at the same pH. A header such as “pH” and “kcat/Km (M-1 s-1)” sets the rate and its unit.</p>
           </div>
-          <div className="space-y-1">
-            <label htmlFor="ph-paste" className="block text-sm font-medium text-ink-700">
-              Paste a block from a spreadsheet
-            </label>
-            <textarea
-              id="ph-paste"
-              rows={2}
-              placeholder={'pH\tkcat/Km (M-1 s-1)\n4.0\t1200'}
-              value={pasteText}
-              onChange={(event) => setPasteText(event.target.value)}
-              onPaste={(event) => {
-                event.preventDefault();
-                handlePasteArea(event.clipboardData.getData('text/plain'));
-              }}
-              className="block w-full rounded-md border border-paper-300 px-3 py-2 font-mono text-xs placeholder:text-ink-400 focus:border-lagoon-500 focus:outline-none focus:ring-2 focus:ring-lagoon-200"
-            />
-            {pasteText.trim() !== '' && (
-              <Button onClick={() => handlePasteArea(pasteText)} className="mt-1">
-                Put the block into the grid
-              </Button>
-            )}
-          </div>
-          {pasteReport && (
-            <Notice tone={pasteReport.problems.length > 0 ? 'caution' : 'info'} title={pasteReport.problems.length > 0 ? 'Part of the block could not be read' : 'Block read'}>
-              <ul className="list-disc pl-4">
-                {[...pasteReport.notes, ...pasteReport.problems].map((line) => (
-                  <li key={line}>{line}</li>
-                ))}
-              </ul>
-            </Notice>
-          )}
+          <PasteBlock id="ph-paste" placeholder={'pH\tkcat/Km (M-1 s-1)\n4.0\t1200'} text={pasteText} onTextChange={setPasteText} onRead={handlePasteArea} report={pasteReport} />
           <PointGridEditor
             state={grid}
             onChange={setGrid}
