@@ -4,6 +4,7 @@ import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { formatNumber } from '@/lib/format';
 import { modelNames, type AssayPreview } from '../lib/assay-preview';
+import { ParameterTable } from './parameter-table';
 
 export interface AssayFitSummaryProps {
   preview: AssayPreview;
@@ -68,32 +69,17 @@ export function AssayFitSummary({ preview, model, onModelChange, sUnit, vUnit }:
       {!preview.hasEnzyme && fit && <Notice tone="info" title="Enter the enzyme concentration [E]t to get kcat and kcat/Km (kcat = Vmax/[E]t)." />}
 
       {rows.length > 0 && fit && (
-        <table className="w-full text-sm" aria-label="Fitted parameters">
-          <thead className="text-left text-xs text-ink-500">
-            <tr className="border-b border-paper-200">
-              <th scope="col" className="py-1 pr-2 font-medium">Parameter</th>
-              <th scope="col" className="py-1 pr-2 text-right font-medium">Value</th>
-              <th scope="col" className="py-1 pr-2 text-right font-medium">± SE</th>
-              <th scope="col" className="py-1 pr-2 text-right font-medium">95 % CI</th>
-              <th scope="col" className="py-1 font-medium">Unit</th>
-            </tr>
-          </thead>
-          <tbody>
-            {rows.map((row) => (
-              <tr key={row.name} className="border-b border-paper-100">
-                <th scope="row" className="py-1 pr-2 text-left font-medium">{row.name}</th>
-                <td className="numeric py-1 pr-2 font-mono" data-parameter={row.name} data-value={row.si}>
-                  {formatNumber(row.estimate.value, 4)}
-                </td>
-                <td className="numeric py-1 pr-2 font-mono">{Number.isFinite(row.estimate.se) ? formatNumber(row.estimate.se, 2) : '—'}</td>
-                <td className="numeric py-1 pr-2 font-mono whitespace-nowrap">
-                  {Number.isFinite(row.estimate.ci95[0]) && Number.isFinite(row.estimate.ci95[1]) ? `${formatNumber(row.estimate.ci95[0], 3)} – ${formatNumber(row.estimate.ci95[1], 3)}` : 'unbounded'}
-                </td>
-                <td className="py-1 text-ink-700">{row.unit}</td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
+        <ParameterTable
+          label="Fitted parameters"
+          rows={rows.map((row) => ({
+            name: row.name,
+            storedValue: row.si,
+            value: formatNumber(row.estimate.value, 4),
+            se: Number.isFinite(row.estimate.se) ? formatNumber(row.estimate.se, 2) : '—',
+            ci95: Number.isFinite(row.estimate.ci95[0]) && Number.isFinite(row.estimate.ci95[1]) ? `${formatNumber(row.estimate.ci95[0], 3)} – ${formatNumber(row.estimate.ci95[1], 3)}` : 'unbounded',
+            unit: row.unit,
+          }))}
+        />
       )}
       {fit && !chosen.error && (
         <p className="text-xs text-ink-500">

@@ -18,6 +18,7 @@ import { parsePastedBlock, phBlock, type ParsedBlock } from '../lib/parse-pasted
 import { phModelNames, phPreview, pkaCandidates, type FittedPka, type PhPreview } from '../lib/ph-preview';
 import { emptyGrid, gridFromBlock, gridPoints, setExclusion } from '../lib/point-grid';
 import { LiveFitBoundary } from './live-fit-boundary';
+import { ParameterTable } from './parameter-table';
 import { PasteBlock } from './paste-block';
 import { PointGridEditor } from './point-grid-editor';
 import { VariantPicker } from './variant-picker';
@@ -302,32 +303,17 @@ function PhFitResults({ preview, unitText, candidates, sitesLoading }: { preview
   ];
   return (
     <div className="space-y-4">
-      <table className="w-full text-sm" aria-label="Fitted pH parameters">
-        <thead className="text-left text-xs text-ink-500">
-          <tr className="border-b border-paper-200">
-            <th scope="col" className="py-1 pr-2 font-medium">Parameter</th>
-            <th scope="col" className="py-1 pr-2 text-right font-medium">Value</th>
-            <th scope="col" className="py-1 pr-2 text-right font-medium">± SE</th>
-            <th scope="col" className="py-1 pr-2 text-right font-medium">95 % CI</th>
-            <th scope="col" className="py-1 font-medium">Unit</th>
-          </tr>
-        </thead>
-        <tbody>
-          {rows.map((row) => (
-            <tr key={row.name} className="border-b border-paper-100">
-              <th scope="row" className="py-1 pr-2 text-left font-medium">{row.name}</th>
-              <td className="numeric py-1 pr-2 font-mono" data-parameter={row.name} data-value={row.estimate.value}>
-                {row.digits > 0 ? row.estimate.value.toFixed(row.digits) : formatNumber(row.estimate.value, 4)}
-              </td>
-              <td className="numeric py-1 pr-2 font-mono">{Number.isFinite(row.estimate.se) ? (row.digits > 0 ? row.estimate.se.toFixed(row.digits) : formatNumber(row.estimate.se, 2)) : '—'}</td>
-              <td className="numeric py-1 pr-2 font-mono whitespace-nowrap">
-                {Number.isFinite(row.estimate.ci95[0]) ? `${formatNumber(row.estimate.ci95[0], 3)} – ${formatNumber(row.estimate.ci95[1], 3)}` : 'unbounded'}
-              </td>
-              <td className="py-1 text-ink-700">{row.unit}</td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
+      <ParameterTable
+        label="Fitted pH parameters"
+        rows={rows.map((row) => ({
+          name: row.name,
+          storedValue: row.estimate.value,
+          value: row.digits > 0 ? row.estimate.value.toFixed(row.digits) : formatNumber(row.estimate.value, 4),
+          se: Number.isFinite(row.estimate.se) ? (row.digits > 0 ? row.estimate.se.toFixed(row.digits) : formatNumber(row.estimate.se, 2)) : '—',
+          ci95: Number.isFinite(row.estimate.ci95[0]) ? `${formatNumber(row.estimate.ci95[0], 3)} – ${formatNumber(row.estimate.ci95[1], 3)}` : 'unbounded',
+          unit: row.unit,
+        }))}
+      />
       <p className="text-xs text-ink-500">
         {preview.fit.n} points, {preview.fit.df} degrees of freedom. Fitted in this browser in {preview.elapsedMs.toFixed(1)} ms.
       </p>
