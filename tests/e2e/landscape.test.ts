@@ -64,9 +64,14 @@ describe.skipIf(!hasBrowser)('the landscape in the browser', () => {
     const heatMap = page.getByRole('figure', { name: 'Fitness landscape heat map' });
     await heatMap.locator('svg').waitFor();
     await drawAllCharts(page);
+    // Each by name as well: a chart whose data arrived after the scroll above was not yet on the page then,
+    // and a chart below the fold draws only once it comes near the viewport.
     for (const name of ['kcat against Km scatter plot', 'pH-optimum shift chart', 'Additivity plot']) {
-      await page.getByRole('figure', { name }).locator('svg').waitFor();
+      const figure = page.getByRole('figure', { name });
+      await figure.scrollIntoViewIfNeeded();
+      await figure.locator('svg').first().waitFor();
     }
+    await page.evaluate(() => window.scrollTo(0, 0));
     await page.getByRole('table', { name: 'Coupling energies of double-mutant cycles' }).waitFor();
     await screenshot(page, 'landscape-demo');
     await heatMap.screenshot({ path: `${import.meta.dirname}/screenshots/landscape-heat-map.png` });
