@@ -5,6 +5,7 @@ import { ensureClientBuilt } from './client-build';
 import { openDatabase } from './data-source';
 import { parseEnv } from './env';
 import { DigestScheduler } from './modules/digests/digest-scheduler';
+import { stopSheetReader } from './modules/imports/sheet-reader';
 import { startMail } from './modules/mail/start-mail';
 import { demoAccounts, demoPassword } from './seed/demo-accounts';
 import { seedDemoIfEmpty } from './seed/seed';
@@ -49,6 +50,7 @@ function shutDown(): void {
     void digests
       .stop()
       .then(() => mail.close())
+      .then(() => stopSheetReader())
       .then(() => dataSource.destroy())
       .finally(() => process.exit(0));
   });

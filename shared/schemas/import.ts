@@ -26,15 +26,7 @@ export type ImportStatus = (typeof importStatuses)[number];
 /** Statuses in which a job is being worked on in the server. */
 export const runningImportStatuses: readonly ImportStatus[] = ['validating', 'committing'];
 
-/** Largest upload, bytes. */
-export const maxImportBytes = 20 * 1024 * 1024;
-/** Most data rows one sheet may have (the header row not counted). */
-export const maxImportRows = 200_000;
-/**
- * Largest total uncompressed size of a workbook's parts, bytes. A 200,000-row sheet of twenty columns is
- * about 150 MB of XML; a zip bomb declares (or inflates to) far more.
- */
-export const maxUncompressedWorkbookBytes = 256 * 1024 * 1024;
+export { maxImportBytes, maxImportRows, maxUncompressedWorkbookBytes } from '../imports/import-limits';
 
 /** How a cell is read. */
 export type ImportValueType = 'text' | 'number' | 'integer' | 'date' | 'boolean' | 'choice';

@@ -20,7 +20,9 @@ export interface StartServerOptions {
 /** Starts the API (by default without the client) on a data folder and waits until /api/health answers. */
 export async function startServer(dataDir: string, port: number, options: StartServerOptions = {}): Promise<RunningServer> {
   if (options.serveClient) await ensureClientBuilt(rootDir, join(rootDir, 'dist', 'client'));
-  const serverArguments = ['--import', 'tsx', 'server/index.ts', ...(options.serveClient ? [] : ['--api-only'])];
+  // BENCH_SERVER_NODE_ARGS passes Node flags to the server only, e.g. "--cpu-prof --cpu-prof-dir=/tmp/prof".
+  const nodeArguments = (process.env.BENCH_SERVER_NODE_ARGS ?? '').split(' ').filter(Boolean);
+  const serverArguments = [...nodeArguments, '--import', 'tsx', 'server/index.ts', ...(options.serveClient ? [] : ['--api-only'])];
   const server: ChildProcess = spawn(process.execPath, serverArguments, {
     cwd: rootDir,
     env: { ...process.env, PORT: String(port), KCATALOG_DATA_DIR: dataDir, KCATALOG_SEED: 'none', KCATALOG_HOST: '127.0.0.1', NODE_ENV: 'production' },

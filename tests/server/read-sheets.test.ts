@@ -2,7 +2,8 @@ import { createHash } from 'node:crypto';
 import ExcelJS from 'exceljs';
 import { describe, expect, it } from 'vitest';
 import { checkUpload, reopenUpload } from '@server/modules/imports/check-upload';
-import { CellFault, readSheet, surveySheets } from '@server/modules/imports/read-sheets';
+import { CellFault } from '@server/modules/imports/read-sheets';
+import { readWholeSheet, SHEET_BATCH_ROWS, sheetRowBatches, stopSheetReader, surveyUpload } from '@server/modules/imports/sheet-reader';
 import { workbookSheetNames } from '@server/modules/imports/workbook-sheet-names';
 import { workbookBuffer } from '@server/modules/exports/spreadsheet-writer';
 
@@ -10,7 +11,7 @@ async function checked(buffer: Buffer) {
   return checkUpload({ originalName: 'sheet.xlsx', buffer });
 }
 
-describe('reading workbooks', () => {
+describe('reading workbooks (on the reader thread)', () => {
   it('names every sheet as its tab says, in tab order, every time (not only when exceljs read the workbook part first)', async () => {
     const rows = (count: number) => Array.from({ length: count }, (_, index) => [`v${index}`, index]);
     // The streaming writer puts the worksheets before xl/workbook.xml in the file.
@@ -21,13 +22,13 @@ describe('reading workbooks', () => {
       ]),
     );
     for (let attempt = 0; attempt < 100; attempt += 1) {
-      const sheets = await surveySheets(upload, 'unused');
+      const sheets = await surveyUpload(upload, 'unused');
       expect(sheets.map((sheet) => [sheet.name, sheet.rowCount])).toEqual([
         ['Measurements', 3],
         ['Rate points & more', 7],
       ]);
     }
-    expect((await readSheet(upload, 'Rate points & more')).rows).toHaveLength(7);
+    expect((await readWholeSheet(upload, 'Rate points & more')).rows).toHaveLength(7);
   });
 
   it('reads dates as dates, formula results as values, and spreadsheet errors and uncalculated formulas as faults', async () => {
@@ -36,7 +37,7 @@ describe('reading workbooks', () => {
     sheet.addRow(['Day', 'Sum', 'Broken', 'Pending', 'Rich']);
     const row = sheet.addRow([new Date(Date.UTC(2026, 2, 4)), { formula: 'B3+1', result: 3 }, { error: '#DIV/0!' }, { formula: 'A1*2' }, { richText: [{ text: 'Ser' }, { text: '112Ala' }] }]);
     row.getCell(1).numFmt = 'yyyy-mm-dd';
-    const { headers, rows } = await readSheet(await checked(Buffer.from(await book.xlsx.writeBuffer())), 'Data');
+    const { headers, rows } = await readWholeSheet(await checked(Buffer.from(await book.xlsx.writeBuffer())), 'Data');
     expect(headers).toEqual(['Day', 'Sum', 'Broken', 'Pending', 'Rich']);
     const [cells] = rows.map((read) => read.cells);
     expect(rows[0].rowNumber).toBe(2);
@@ -70,5 +71,43 @@ describe('workbookSheetNames', () => {
       [4, 'Kinetics & pH'],
       [1, 'Points'],
     ]);
+  });
+});
+
+describe('the reader thread', () => {
+  const manyRows = async (count: number) =>
+    checked(await workbookBuffer([{ name: 'Rows', headers: ['Variant', 'kcat (1/s)'], rows: Array.from({ length: count }, (_, index) => [`A${index + 2}W`, index]) }]));
+
+  it('hands the rows over in order, in batches, and a reader that stops early leaves the thread free for the next file', async () => {
+    const upload = await manyRows(1_800);
+    const batches: number[] = [];
+    for await (const batch of sheetRowBatches(upload, 'Rows')) {
+      batches.push(batch.length);
+      expect(batch[0].rowNumber).toBe(2 + (batches.length - 1) * SHEET_BATCH_ROWS);
+    }
+    expect(batches).toEqual([500, 500, 500, 300]);
+    for await (const batch of sheetRowBatches(upload, 'Rows')) {
+      expect(batch).toHaveLength(500);
+      break;
+    }
+    expect((await readWholeSheet(upload, 'Rows')).rows).toHaveLength(1_800);
+  });
+
+  it('fails the reads in progress with a message when the thread dies, and starts a new thread for the next read', async () => {
+    const upload = await manyRows(3_000);
+    const reading = (async () => {
+      let rows = 0;
+      for await (const batch of sheetRowBatches(upload, 'Rows')) {
+        rows += batch.length;
+        if (rows === SHEET_BATCH_ROWS) await stopSheetReader();
+      }
+      return rows;
+    })();
+    await expect(reading).rejects.toThrow(/the spreadsheet reader stopped/);
+    expect((await readWholeSheet(upload, 'Rows')).rows).toHaveLength(3_000);
+  });
+
+  it('refuses a sheet that is not in the file, naming it', async () => {
+    await expect(readWholeSheet(await manyRows(3), 'Elsewhere')).rejects.toThrow('The file has no sheet named Elsewhere.');
   });
 });

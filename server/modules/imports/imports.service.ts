@@ -28,11 +28,11 @@ import { ImportLookups } from './import-lookups';
 import { measurementImport } from './measurement-import';
 import { phSeriesImport } from './ph-series-import';
 import { ratePointImport } from './rate-point-import';
-import { readSheet, surveySheets } from './read-sheets';
 import { rememberedForm, resolveMapping, type ResolvedMapping } from './resolve-mapping';
 import type { RowProblem } from './row-reader';
 import { ImportRolledBack, runImport, type ImportHandler, type ImportRunResult } from './run-import';
 import { SavedColumnMapping } from './saved-column-mapping.entity';
+import { sheetRowBatches, surveyUpload } from './sheet-reader';
 import { variantImport, type HandlerOptions } from './variant-import';
 
 /** Audit entity type of import jobs. */
@@ -73,7 +73,7 @@ const running = new WeakMap<DataSource, Set<Promise<void>>>();
 export async function uploadImport(storage: ImportStorage, actor: ImportActor, kind: ImportKind, file: { originalName: string; buffer: Buffer }): Promise<ImportJobDto> {
   const originalName = cleanFileName(file.originalName);
   const upload = await checkUpload({ originalName, buffer: file.buffer });
-  const sheets = await surveySheets(upload, sheetNameOfCsv(originalName));
+  const sheets = await surveyUpload(upload, sheetNameOfCsv(originalName));
   if (sheets.every((sheet) => sheet.headers.length === 0)) throw badRequest('The file cannot be imported: it has no rows.', { file: 'it has no rows' });
   const stored = await storeFile(storage.dataDir, file.buffer);
   const id = await writeTransaction(storage.dataSource, async (manager) => {
@@ -342,10 +342,10 @@ async function previewInBackground(storage: ImportStorage, actorId: number, id: 
   const { dataSource } = storage;
   try {
     const job = await dataSource.getRepository(ImportJob).findOneByOrFail({ id });
-    const rows = await readMappedRows(storage, job, mapping);
+    const rows = await mappedRowBatches(storage, job, mapping);
     const lookups = await ImportLookups.load(dataSource.manager);
     const handler = handlerFor(job.kind, { manager: dataSource.manager, lookups, mapping, rows, defaultCampaignId: job.campaignId, actorId });
-    const result = await runImport(handler, rows.length, {
+    const result = await runImport(handler, job.rowsTotal, {
       write: false,
       mode: 'valid-only',
       onProgress: (processed, total) => progress(dataSource.manager, id, processed, total),
@@ -367,12 +367,13 @@ async function commitInBackground(
   try {
     const job = await dataSource.getRepository(ImportJob).findOneByOrFail({ id });
     const mode = job.mode ?? 'all-or-nothing';
-    const rows = await readMappedRows(storage, job, mapping);
-    // The checks run inside the transaction, so they see exactly the state the writes build on.
+    const rows = await mappedRowBatches(storage, job, mapping);
+    // The checks run inside the transaction, so they see exactly the state the writes build on. The rows are
+    // checked and written batch by batch as the reader thread parses them.
     await writeTransaction(dataSource, async (manager) => {
       const lookups = await ImportLookups.load(manager);
       const handler = handlerFor(job.kind, { manager, lookups, mapping, rows, defaultCampaignId: job.campaignId, actorId });
-      const result = await runImport(handler, rows.length, {
+      const result = await runImport(handler, job.rowsTotal, {
         write: true,
         mode,
         seenAtPreview,
@@ -415,10 +416,10 @@ async function commitInBackground(
   }
 }
 
-async function readMappedRows(storage: ImportStorage, job: ImportJob, mapping: ResolvedMapping) {
+async function mappedRowBatches(storage: ImportStorage, job: ImportJob, mapping: ResolvedMapping) {
   const upload = await loadUpload(storage, job);
   const columns = [...new Set([...mapping.values()].map((column) => column.column))];
-  return (await readSheet(upload, job.sheetName ?? '', columns)).rows;
+  return sheetRowBatches(upload, job.sheetName ?? '', columns);
 }
 
 function number(value: number): string {

@@ -26,6 +26,7 @@ import { certainMeasurementInput } from './measurement-input';
 import { issuesToProblems, RowReader } from './row-reader';
 import { invalidUnit, yieldEvery, type ImportHandler } from './run-import';
 import { sameNumber, sameText } from './same-values';
+import type { SheetRow } from './read-sheets';
 import type { HandlerOptions } from './variant-import';
 
 /** A row with the campaign and variant it names. */
@@ -78,7 +79,8 @@ const COMPARED_NUMBERS: readonly (keyof Measurement)[] = ['kcat', 'kcatSe', 'km'
  */
 export function measurementImport(options: HandlerOptions): ImportHandler<MeasurementUnit, MeasurementPlan> {
   const { manager, lookups, actorId } = options;
-  let storedAssays = new Map<string, StoredAssay[]>();
+  const storedAssays = new Map<string, StoredAssay[]>();
+  const loadedVariants = new Set<number>();
   const currentMeasurements = new Map<number, Measurement>();
   const occurrences = new Map<string, number>();
   const touched = new Map<number, Set<number>>();
@@ -86,16 +88,23 @@ export function measurementImport(options: HandlerOptions): ImportHandler<Measur
   return {
     previewColumns: PREVIEW_COLUMNS,
 
-    async units() {
-      const units = await identifiedUnits(options);
-      const variantIds = new Set(units.flatMap((unit) => (unit.variant?.ok ? [unit.variant.variant.id] : [])));
-      storedAssays = await loadStoredAssays(manager, [...variantIds], false);
-      const assayIds = [...storedAssays.values()].flat().map((assay) => assay.id);
-      for (let start = 0; start < assayIds.length; start += 500) {
-        const found = await manager.getRepository(Measurement).find({ where: { assayId: In(assayIds.slice(start, start + 500)), supersededById: IsNull() } });
-        for (const measurement of found) currentMeasurements.set(measurement.assayId, measurement);
+    // Rows stand alone, so each batch is checked and written as it arrives. A variant's stored assays are read
+    // with the first batch that names it: earlier batches wrote only for the variants they named, so what is
+    // read is still the state before the import.
+    async *units() {
+      for await (const rows of options.rows) {
+        const units = await identifiedUnits(options, rows);
+        const variantIds = [...new Set(units.flatMap((unit) => (unit.variant?.ok ? [unit.variant.variant.id] : [])))].filter((id) => !loadedVariants.has(id));
+        for (const id of variantIds) loadedVariants.add(id);
+        const found = await loadStoredAssays(manager, variantIds, false);
+        for (const [key, assays] of found) storedAssays.set(key, assays);
+        const assayIds = [...found.values()].flat().map((assay) => assay.id);
+        for (let start = 0; start < assayIds.length; start += 500) {
+          const current = await manager.getRepository(Measurement).find({ where: { assayId: In(assayIds.slice(start, start + 500)), supersededById: IsNull() } });
+          for (const measurement of current) currentMeasurements.set(measurement.assayId, measurement);
+        }
+        yield units;
       }
-      return units;
     },
 
     rowCount: () => 1,
@@ -283,13 +292,14 @@ export function measurementImport(options: HandlerOptions): ImportHandler<Measur
  * campaigns' variants are loaded first).
  *
  * @param options the handler options
+ * @param rows the rows (a batch, or the whole sheet)
  * @returns one unit a row, in row order
  */
-export async function identifiedUnits(options: HandlerOptions): Promise<MeasurementUnit[]> {
+export async function identifiedUnits(options: HandlerOptions, rows: readonly SheetRow[]): Promise<MeasurementUnit[]> {
   const { lookups, mapping } = options;
   const units: MeasurementUnit[] = [];
   const campaignIds = new Set<number>();
-  for (const [index, row] of options.rows.entries()) {
+  for (const [index, row] of rows.entries()) {
     await yieldEvery(index);
     const reader = new RowReader(mapping, row);
     const campaignText = reader.text('campaign');

@@ -9,6 +9,7 @@ import { phProfileAuditType, phProfileColumns } from '../ph-profiles/ph-profiles
 import { queryByIds, type VariantInfo } from './import-lookups';
 import { insertAuditEvents, insertEntities } from './insert-rows';
 import { identifiedUnits } from './measurement-import';
+import { allRows } from './read-sheets';
 import { issuesToProblems, type RowProblem, type RowReader } from './row-reader';
 import { invalidUnit, yieldEvery, type ImportHandler } from './run-import';
 import { keyNumber, sameNumber } from './same-values';
@@ -74,8 +75,9 @@ export function phSeriesImport(options: HandlerOptions): ImportHandler<PhGroup, 
   return {
     previewColumns: PREVIEW_COLUMNS,
 
-    async units() {
-      const identified = await identifiedUnits(options);
+    // An assay's rows may be anywhere in the sheet, so the units are formed once every row is read.
+    async *units() {
+      const identified = await identifiedUnits(options, await allRows(options.rows));
       const groups = new Map<string, PhGroup>();
       const ordered: PhGroup[] = [];
       for (const [index, unit] of identified.entries()) {
@@ -117,7 +119,7 @@ export function phSeriesImport(options: HandlerOptions): ImportHandler<PhGroup, 
         const key = profileKey(profile.variant_id, profile.substrate, profile.temperature_k, profile.rate_kind, profile.model);
         storedProfiles.set(key, [...(storedProfiles.get(key) ?? []), profile]);
       }
-      return ordered;
+      yield ordered;
     },
 
     rowCount: (group) => group.rows.length,

@@ -27,6 +27,7 @@ import {
 import { queryByIds, type VariantInfo } from './import-lookups';
 import { insertAuditEvents, insertEntities } from './insert-rows';
 import { identifiedUnits } from './measurement-import';
+import { allRows } from './read-sheets';
 import { issuesToProblems, type RowProblem, type RowReader } from './row-reader';
 import { invalidUnit, yieldEvery, type CheckedUnit, type ImportHandler } from './run-import';
 import { sameNumber, sameText } from './same-values';
@@ -94,8 +95,9 @@ export function ratePointImport(options: HandlerOptions): ImportHandler<AssayGro
   return {
     previewColumns: PREVIEW_COLUMNS,
 
-    async units() {
-      const identified = await identifiedUnits(options);
+    // An assay's rows may be anywhere in the sheet, so the units are formed once every row is read.
+    async *units() {
+      const identified = await identifiedUnits(options, await allRows(options.rows));
       const groups = new Map<string, AssayGroup>();
       const ordered: AssayGroup[] = [];
       for (const [index, unit] of identified.entries()) {
@@ -160,7 +162,7 @@ export function ratePointImport(options: HandlerOptions): ImportHandler<AssayGro
         });
         for (const measurement of found) storedModels.set(measurement.assayId, measurement.model);
       }
-      return ordered;
+      yield ordered;
     },
 
     rowCount: (group) => group.rows.length,

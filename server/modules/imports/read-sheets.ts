@@ -1,7 +1,7 @@
 import { Readable } from 'node:stream';
 import ExcelJS from 'exceljs';
 import Papa from 'papaparse';
-import { maxImportRows } from '@shared/schemas/import';
+import { maxImportRows } from '@shared/imports/import-limits';
 import { HttpError } from '../../http/errors';
 import type { CheckedUpload } from './check-upload';
 
@@ -78,39 +78,53 @@ export async function surveySheets(upload: CheckedUpload, csvSheetName: string):
 }
 
 /**
- * The header row and data rows of one sheet. Only the columns in `columns` are kept in each row, so a
- * wide sheet costs memory only for the columns mapped.
+ * The header row and data rows of one sheet, handed over in batches as they are read, so that the rows
+ * can be checked and written while the rest of the file is still being parsed. Only the columns in
+ * `columns` are kept in each row, so a wide sheet costs memory only for the columns mapped.
  *
  * @param upload the checked upload
  * @param sheetName the sheet to read (a CSV file has one, whatever its name)
  * @param columns 0-based columns to keep; all when omitted
+ * @param receiver gets the header texts once, then the data rows (rows without any content are skipped) in order
+ * @param batchSize rows a batch
  * @throws {HttpError} 400 when the sheet is missing, has too many rows or cannot be read
- * @returns the header texts and the data rows (rows without any content are skipped)
  */
-export async function readSheet(
+export async function readSheetInBatches(
   upload: CheckedUpload,
   sheetName: string,
-  columns?: readonly number[],
-): Promise<{ headers: string[]; rows: SheetRow[] }> {
+  columns: readonly number[] | undefined,
+  receiver: { onHeader: (headers: string[]) => void; onRows: (rows: SheetRow[]) => void },
+  batchSize: number,
+): Promise<void> {
   let found = false;
-  let headers: string[] = [];
-  const rows: SheetRow[] = [];
+  let rowCount = 0;
+  let batch: SheetRow[] = [];
   await readRows(upload, sheetName, columns, {
     onSheet: (name) => {
       const wanted = upload.format === 'csv' || name === sheetName;
       found ||= wanted;
       return wanted;
     },
-    onHeader: (values) => {
-      headers = values;
-    },
+    onHeader: receiver.onHeader,
     onRow: (row) => {
-      if (rows.length >= maxImportRows) throw tooManyRows(sheetName);
-      rows.push(row);
+      rowCount += 1;
+      if (rowCount > maxImportRows) throw tooManyRows(sheetName);
+      batch.push(row);
+      if (batch.length >= batchSize) {
+        receiver.onRows(batch);
+        batch = [];
+      }
     },
   });
   if (!found) throw new HttpError(400, 'validation_error', `The file has no sheet named ${sheetName}.`, { sheet: `no sheet is named ${sheetName}` });
-  return { headers, rows };
+  if (batch.length > 0) receiver.onRows(batch);
+}
+
+/** Every row of a sheet read in batches, in order. */
+export async function allRows(batches: AsyncIterable<SheetRow[]>): Promise<SheetRow[]> {
+  const rows: SheetRow[] = [];
+  for await (const batch of batches) for (const row of batch) rows.push(row);
+  return rows;
 }
 
 interface RowVisitor {

@@ -3,7 +3,8 @@ import { notFound } from '../../http/errors';
 import { workbookBuffer, type OutputCell } from '../exports/spreadsheet-writer';
 import { ImportJob } from './import-job.entity';
 import { loadUpload, type ImportStorage } from './imports.service';
-import { CellFault, readSheet } from './read-sheets';
+import { CellFault } from './read-sheets';
+import { readWholeSheet } from './sheet-reader';
 
 /**
  * The rows a valid-only commit did not import, as a workbook to fix and import again: the original sheet's
@@ -26,7 +27,7 @@ export async function rejectedRowsWorkbook(storage: ImportStorage, id: number): 
     const text = problem.column === null ? problem.message : `${problem.column}: ${problem.message}`;
     reasons.set(problem.row, [...(reasons.get(problem.row) ?? []), text]);
   }
-  const { headers, rows } = await readSheet(await loadUpload(storage, job), job.sheetName);
+  const { headers, rows } = await readWholeSheet(await loadUpload(storage, job), job.sheetName);
   const width = Math.max(headers.length, ...rows.map((row) => row.cells.length));
   const output: OutputCell[][] = rows
     .filter((row) => reasons.has(row.rowNumber))

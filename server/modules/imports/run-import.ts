@@ -24,8 +24,11 @@ export interface CheckedUnit<Plan> {
 export interface ImportHandler<Unit, Plan> {
   /** Labels of the preview's columns, with the stored units. */
   readonly previewColumns: readonly string[];
-  /** Reads every row and loads what the checks compare with; groups rows into units in row order. */
-  units(): Promise<Unit[]>;
+  /**
+   * The units in row order, in batches as the rows arrive, each with what its checks compare with loaded; a
+   * kind whose units gather rows from anywhere in the sheet gives them in one batch once every row is read.
+   */
+  units(): AsyncIterable<Unit[]>;
   rowCount(unit: Unit): number;
   /** Checks a unit; its rows' preview values are built only when `preview` is true (the first rows). */
   check(unit: Unit, preview: boolean): CheckedUnit<Plan>;
@@ -79,27 +82,29 @@ export async function runImport<Unit, Plan>(handler: ImportHandler<Unit, Plan>, 
     preview: { columns: [...handler.previewColumns], rows: [] },
     seen: {},
   };
-  const units: (Unit | undefined)[] = await handler.units();
   const writing = () => options.write && (options.mode === 'valid-only' || result.counts.invalid === 0);
   let processed = 0;
-  let index = 0;
-  while (index < units.length) {
-    const plans: Plan[] = [];
-    let chunkRows = 0;
-    while (index < units.length && chunkRows < CHUNK_ROWS) {
-      const unit = units[index]!;
-      // Checked units are let go as the work goes, so a large sheet's rows do not all stay in memory.
-      units[index] = undefined;
-      index += 1;
-      chunkRows += handler.rowCount(unit);
-      const checked = refuseChangedSincePreview(handler.check(unit, result.preview.rows.length < PREVIEW_ROWS), options.seenAtPreview);
-      record(result, checked);
-      if (checked.plan !== null && checked.outcome !== 'invalid') plans.push(checked.plan);
+  for await (const batch of handler.units()) {
+    const units: (Unit | undefined)[] = batch;
+    let index = 0;
+    while (index < units.length) {
+      const plans: Plan[] = [];
+      let chunkRows = 0;
+      while (index < units.length && chunkRows < CHUNK_ROWS) {
+        const unit = units[index]!;
+        // Checked units are let go as the work goes, so a large sheet's rows do not all stay in memory.
+        units[index] = undefined;
+        index += 1;
+        chunkRows += handler.rowCount(unit);
+        const checked = refuseChangedSincePreview(handler.check(unit, result.preview.rows.length < PREVIEW_ROWS), options.seenAtPreview);
+        record(result, checked);
+        if (checked.plan !== null && checked.outcome !== 'invalid') plans.push(checked.plan);
+      }
+      if (writing() && plans.length > 0) await handler.write(plans);
+      processed += chunkRows;
+      await options.onProgress(Math.min(processed, total), total);
+      await nextTurn();
     }
-    if (writing() && plans.length > 0) await handler.write(plans);
-    processed += chunkRows;
-    await options.onProgress(Math.min(processed, total), total);
-    await nextTurn();
   }
   if (options.write && options.mode === 'all-or-nothing' && result.counts.invalid > 0) throw new ImportRolledBack(result);
   if (options.write) await handler.finish();

@@ -12,7 +12,7 @@ import { ImportLookups, type CampaignInfo, type VariantInfo } from './import-loo
 import { insertAuditEvents, insertEntities } from './insert-rows';
 import type { ResolvedMapping } from './resolve-mapping';
 import { issuesToProblems, RowReader } from './row-reader';
-import { invalidUnit, yieldEvery, type ImportHandler } from './run-import';
+import { invalidUnit, type ImportHandler } from './run-import';
 import type { SheetRow } from './read-sheets';
 
 /** A variant written earlier in the same import, whose id is known once its chunk is written. */
@@ -46,7 +46,8 @@ export interface HandlerOptions {
   manager: EntityManager;
   lookups: ImportLookups;
   mapping: ResolvedMapping;
-  rows: readonly SheetRow[];
+  /** The sheet's rows in batches, in order, as they are read. */
+  rows: AsyncIterable<SheetRow[]>;
   defaultCampaignId: number | null;
   actorId: number;
 }
@@ -70,19 +71,22 @@ export function variantImport(options: HandlerOptions): ImportHandler<VariantUni
   return {
     previewColumns: PREVIEW_COLUMNS,
 
-    async units() {
-      const units: VariantUnit[] = [];
-      const campaignIds = new Set<number>();
-      for (const [index, row] of options.rows.entries()) {
-        await yieldEvery(index);
-        const reader = new RowReader(mapping, row);
-        const campaignText = reader.text('campaign');
-        units.push({ reader, campaignText });
-        const campaign = lookups.campaign(campaignText, options.defaultCampaignId);
-        if (campaign.ok) campaignIds.add(campaign.info.campaign.id);
+    // Rows stand alone, so each batch is checked and written as it arrives; a campaign's variants are read
+    // with the first batch that names it (earlier batches wrote only to the campaigns they named).
+    async *units() {
+      for await (const rows of options.rows) {
+        const units: VariantUnit[] = [];
+        const campaignIds = new Set<number>();
+        for (const row of rows) {
+          const reader = new RowReader(mapping, row);
+          const campaignText = reader.text('campaign');
+          units.push({ reader, campaignText });
+          const campaign = lookups.campaign(campaignText, options.defaultCampaignId);
+          if (campaign.ok) campaignIds.add(campaign.info.campaign.id);
+        }
+        await lookups.loadVariants(campaignIds);
+        yield units;
       }
-      await lookups.loadVariants(campaignIds);
-      return units;
     },
 
     rowCount: () => 1,
