@@ -14,12 +14,12 @@
  */
 import { execFileSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
-import { createServer, type AddressInfo } from 'node:net';
 import { loadavg } from 'node:os';
 import { join, resolve } from 'node:path';
 import type { Browser, BrowserContext, CDPSession, Page } from 'playwright-core';
 import { findChromium, launchChromium } from '../e2e/chromium';
 import { startServer } from './start-server';
+import { freePort } from '../free-port';
 
 const dataDir = resolve(process.env.KCATALOG_SCALE_DATA_DIR ?? './data-scale');
 const runsPerAddress = Number(process.env.BENCH_RUNS ?? 5);
@@ -82,17 +82,6 @@ declare global {
     __firstRowsSeenAt?: number;
     __firstRowsPaintedAt?: number;
   }
-}
-
-function freePort(): Promise<number> {
-  return new Promise((resolvePort, reject) => {
-    const probe = createServer();
-    probe.once('error', reject);
-    probe.listen(0, '127.0.0.1', () => {
-      const { port } = probe.address() as AddressInfo;
-      probe.close(() => resolvePort(port));
-    });
-  });
 }
 
 async function signIn(browser: Browser, baseUrl: string): Promise<Awaited<ReturnType<BrowserContext['storageState']>>> {

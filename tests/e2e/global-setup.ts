@@ -1,24 +1,12 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
-import { createServer, type AddressInfo } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import type { TestProject } from 'vitest/node';
 import { chromiumMissingHint, findChromium } from './chromium';
+import { freePort } from '../free-port';
 
 const rootDir = resolve(import.meta.dirname, '../..');
-
-/** A port nobody listens on, so several browser-test runs on one machine do not collide. */
-function freePort(): Promise<number> {
-  return new Promise((resolvePort, reject) => {
-    const probe = createServer();
-    probe.once('error', reject);
-    probe.listen(0, '127.0.0.1', () => {
-      const { port } = probe.address() as AddressInfo;
-      probe.close(() => resolvePort(port));
-    });
-  });
-}
 
 async function waitForHealth(url: string, server: ChildProcess, timeoutMs = 120_000): Promise<void> {
   const deadline = Date.now() + timeoutMs;

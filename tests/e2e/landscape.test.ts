@@ -2,12 +2,12 @@
 // page.evaluate callbacks run in the browser.
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import { copyFileSync, existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
-import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { baseUrl, hasBrowser, openBrowser, screenshot, signInAs } from './session';
+import { freePort } from '../free-port';
 
 // The demo campaign is invented (server/seed/demo-scenario.ts); the scale registry is the synthetic one of
 // `npm run seed:scale` (server/seed/scale-seed.ts): four campaigns on a 500-residue parent, 9,000 singles each.
@@ -154,18 +154,6 @@ describe.skipIf(!hasBrowser)('the landscape in the browser', () => {
     await page.close();
   });
 });
-
-/** A free TCP port on the loopback interface. */
-function freePort(): Promise<number> {
-  return new Promise((done, fail) => {
-    const server = createServer();
-    server.once('error', fail);
-    server.listen(0, '127.0.0.1', () => {
-      const address = server.address();
-      server.close(() => done(typeof address === 'object' && address ? address.port : 0));
-    });
-  });
-}
 
 /** Starts the real server on a data folder; resolves with its address, or rejects with its output. */
 function startServer(dataDir: string, port: number): Promise<{ url: string; process: ChildProcess }> {

@@ -1,4 +1,3 @@
-import { createServer } from 'node:net';
 import { SMTPServer } from 'smtp-server';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import { writeTransaction } from '@server/write-transaction';
@@ -10,6 +9,7 @@ import { escapeHtml } from '@server/modules/mail/escape-html';
 import { createMailTestApp, receivedFor, waitFor, waitForMessages, type MailTestApp } from './mail-test-app';
 import { removeDataDir } from './test-app';
 import { signInEveryRole } from './role-sessions';
+import { freePort } from '../free-port';
 
 let testApp: MailTestApp;
 let roles: Awaited<ReturnType<typeof signInEveryRole>>;
@@ -28,15 +28,6 @@ async function queue(to: string, subject: string): Promise<OutboxMessage> {
   return writeTransaction(testApp.dataSource, (manager) =>
     enqueueMail(manager, { kind: 'invitation', to, toName: 'Invented Person', from: 'Kcatalog <kcatalog@localhost>', subject, text: 'Plain part', html: '<p>HTML part</p>', headers: { 'X-Test': 'yes' } }),
   );
-}
-
-/** A port that was free a moment ago (nothing listens on it now). */
-async function freePort(): Promise<number> {
-  const server = createServer();
-  await new Promise<void>((done) => server.listen(0, '127.0.0.1', done));
-  const address = server.address();
-  await new Promise<void>((done) => server.close(() => done()));
-  return typeof address === 'object' && address ? address.port : 0;
 }
 
 async function outboxRow(id: number): Promise<OutboxMessage> {

@@ -11,6 +11,19 @@ interface FieldFrameProps {
   children: ReactNode;
 }
 
+/**
+ * What every field's control carries: its id, its invalid state and the id of the text below it, and the
+ * shared look with a red border on error.
+ */
+export function controlAttributes(id: string, error: string | undefined, hint: ReactNode, className: string) {
+  return {
+    id,
+    'aria-invalid': error ? true : undefined,
+    'aria-describedby': error ? `${id}-error` : hint ? `${id}-hint` : undefined,
+    className: `${controlClass} ${error ? 'border-signal-danger' : 'border-paper-300'} ${className}`,
+  };
+}
+
 /** The label above a control and its error (or else its hint) below, tied to it by id. */
 export function FieldFrame({ id, label, error, hint, children }: FieldFrameProps) {
   return (
@@ -41,14 +54,7 @@ export const TextField = forwardRef<HTMLInputElement, TextFieldProps>(function T
   const id = props.id ?? generatedId;
   return (
     <FieldFrame id={id} label={label} error={error} hint={hint}>
-      <input
-        ref={ref}
-        id={id}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={error ? `${id}-error` : hint ? `${id}-hint` : undefined}
-        className={`${controlClass} ${error ? 'border-signal-danger' : 'border-paper-300'} ${className}`}
-        {...props}
-      />
+      <input ref={ref} {...controlAttributes(id, error, hint, className)} {...props} />
     </FieldFrame>
   );
 });
@@ -65,13 +71,7 @@ export const SelectField = forwardRef<HTMLSelectElement, SelectFieldProps>(funct
   const id = props.id ?? generatedId;
   return (
     <FieldFrame id={id} label={label} error={error} hint={hint}>
-      <select
-        ref={ref}
-        id={id}
-        aria-invalid={error ? true : undefined}
-        className={`${controlClass} ${error ? 'border-signal-danger' : 'border-paper-300'} ${className}`}
-        {...props}
-      >
+      <select ref={ref} {...controlAttributes(id, error, hint, className)} {...props}>
         {options.map((option) => (
           <option key={option.value} value={option.value}>
             {option.label}

@@ -1,5 +1,5 @@
 import { forwardRef, useId, type ReactNode, type TextareaHTMLAttributes } from 'react';
-import { controlClass, FieldFrame } from './field';
+import { controlAttributes, FieldFrame } from './field';
 
 export interface TextAreaFieldProps extends TextareaHTMLAttributes<HTMLTextAreaElement> {
   label: string;
@@ -13,14 +13,7 @@ export const TextAreaField = forwardRef<HTMLTextAreaElement, TextAreaFieldProps>
   const id = props.id ?? generatedId;
   return (
     <FieldFrame id={id} label={label} error={error} hint={hint}>
-      <textarea
-        ref={ref}
-        id={id}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={error ? `${id}-error` : hint ? `${id}-hint` : undefined}
-        className={`${controlClass} ${error ? 'border-signal-danger' : 'border-paper-300'} ${className}`}
-        {...props}
-      />
+      <textarea ref={ref} {...controlAttributes(id, error, hint, className)} {...props} />
     </FieldFrame>
   );
 });
