@@ -98,9 +98,14 @@ const workbookParts = [
   { name: 'xl/workbook.xml', data: Buffer.from('<workbook/>') },
 ];
 
-function expectRefusal(response: { status: number; body: { error: { code: string; fields?: Record<string, string> } } }, pattern: RegExp, field = 'file') {
-  expect(response.status, JSON.stringify(response.body)).toBe(400);
-  expect(response.body.error.code).toBe('validation_error');
+function expectRefusal(
+  response: { status: number; body: { error: { code: string; fields?: Record<string, string> } } },
+  pattern: RegExp,
+  field = 'file',
+  status: 400 | 413 = 400,
+) {
+  expect(response.status, JSON.stringify(response.body)).toBe(status);
+  expect(response.body.error.code).toBe(status === 413 ? 'payload_too_large' : 'validation_error');
   expect(response.body.error.fields?.[field]).toMatch(pattern);
 }
 
@@ -150,7 +155,7 @@ describe('POST /api/imports', () => {
 
   it('refuses a file over 20 MB', async () => {
     const response = await upload(lead, 'variants', 'big.csv', Buffer.alloc(maxImportBytes + 1, 'a'));
-    expectRefusal(response, /larger than 20 MB/);
+    expectRefusal(response, /larger than 20 MB/, 'file', 413);
   });
 
   it('refuses a zip bomb: parts that declare more than the cap unpacked', async () => {

@@ -25,7 +25,7 @@ const upload = multer({
 
 const uploadFields = z.object({ kind: z.enum(importKinds, { error: `must be one of ${importKinds.join(', ')}` }) });
 
-/** Multipart bodies go through multer; its refusals become 400 answers with a field message, never a 500. */
+/** Multipart bodies go through multer; its refusals become 400 (413 for size) answers with a field message, never a 500. */
 const receiveFile: RequestHandler = (req, res, next) => {
   if (!req.is('multipart/form-data')) {
     throw badRequest(`Send the file as multipart/form-data in the field "${FILE_FIELD}".`, { [FILE_FIELD]: 'send the file as multipart/form-data' });
@@ -37,7 +37,8 @@ function uploadError(error: unknown): HttpError {
   if (!(error instanceof multer.MulterError)) return badRequest('The upload could not be read (malformed multipart body).', { [FILE_FIELD]: 'could not be read' });
   if (error.code === 'LIMIT_FILE_SIZE') {
     const message = `is larger than ${megabytes} MB, the most an import takes; split the sheet into several files`;
-    return badRequest(`The file cannot be imported: it ${message}.`, { [FILE_FIELD]: message });
+    // 413 Content Too Large (RFC 9110 §15.5.14), as the attachment upload answers.
+    return new HttpError(413, 'payload_too_large', `The file cannot be imported: it ${message}.`, { [FILE_FIELD]: message });
   }
   if (error.code === 'LIMIT_FILE_COUNT' || error.code === 'LIMIT_UNEXPECTED_FILE') {
     return badRequest(`Send one file, in the form field "${FILE_FIELD}".`, { [FILE_FIELD]: `send one file, in the field "${FILE_FIELD}"` });
