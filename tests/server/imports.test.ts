@@ -4,6 +4,7 @@ import { crc32, deflateRawSync } from 'node:zlib';
 import { createHash } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { settleImports } from '@server/modules/imports/imports.service';
+import { readZipCentralDirectory, verifyInflatedSizes } from '@server/modules/imports/zip-central-directory';
 import { maxImportBytes, maxImportRows, type ImportJobDto } from '@shared/schemas/import';
 import { binary, committed, csv, imported, previewed, readWorkbook, settled, upload, uploaded, workbook, type Cell } from './import-fixtures';
 import { campaignBody, enzymeBody } from './registry-fixtures';
@@ -127,6 +128,25 @@ describe('POST /api/imports', () => {
     expect(readFileSync(join(testApp.dataDir, attachment.stored_path)).equals(content)).toBe(true);
     const file = await lead.agent.get(job.fileUrl).buffer(true).parse(binary).expect(200);
     expect((file.body as Buffer).equals(content)).toBe(true);
+  });
+
+  it('reads a workbook whose workbook part comes after its worksheets, with the shared strings before them', async () => {
+    // A part order the ZIP format allows (the central directory says where each part is) and that
+    // exceljs's streaming reader failed on, reading the worksheet before it knew the workbook.
+    const content = await workbook({ Variants: [['Campaign', 'Mutations'], ['c', 'S112A'], ['c', 'H190N']], Notes: [['Anything'], ['x']] });
+    const entries = readZipCentralDirectory(content, 1e9);
+    const parts = await verifyInflatedSizes(content, entries, entries.map((entry) => entry.name));
+    const rank = (name: string) =>
+      ['[Content_Types].xml', '_rels/.rels', 'xl/_rels/workbook.xml.rels', 'xl/sharedStrings.xml', 'xl/styles.xml'].indexOf(name) + 1 ||
+      (name.startsWith('xl/worksheets/') ? 10 : name === 'xl/workbook.xml' ? 30 : 20);
+    const names = [...parts.keys()].filter((name) => !name.endsWith('/')).sort((first, second) => rank(first) - rank(second));
+    expect(names.at(-1)).toBe('xl/workbook.xml');
+    const reordered = zip(names.map((name) => ({ name, data: parts.get(name)! })));
+    const job = await uploaded(lead, 'variants', 'reordered.xlsx', reordered);
+    expect(job.sheets.map((sheet) => [sheet.name, sheet.rowCount])).toEqual([
+      ['Variants', 2],
+      ['Notes', 1],
+    ]);
   });
 
   it('takes a .csv file (UTF-8, with or without a byte-order mark) as one sheet named after the file', async () => {

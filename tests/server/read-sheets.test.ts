@@ -6,6 +6,7 @@ import { CellFault } from '@server/modules/imports/read-sheets';
 import { readWholeSheet, SHEET_BATCH_ROWS, sheetRowBatches, stopSheetReader, surveyUpload } from '@server/modules/imports/sheet-reader';
 import { workbookSheetNames } from '@server/modules/imports/workbook-sheet-names';
 import { workbookBuffer } from '@server/modules/exports/spreadsheet-writer';
+import { readZipCentralDirectory, withPartsFirst } from '@server/modules/imports/zip-central-directory';
 
 async function checked(buffer: Buffer) {
   return checkUpload({ originalName: 'sheet.xlsx', buffer });
@@ -111,3 +112,29 @@ describe('the reader thread', () => {
     await expect(readWholeSheet(await manyRows(3), 'Elsewhere')).rejects.toThrow('The file has no sheet named Elsewhere.');
   });
 });
+
+describe('the reader and the order of the parts in the file', () => {
+  it('puts the workbook, its relationships, styles and shared strings first, then the worksheets, keeping every byte', async () => {
+    // exceljs's own writer puts the worksheets before the shared strings, styles and workbook part.
+    const archive = await workbookBuffer([{ name: 'Rows', headers: ['a'], rows: [['x']] }]);
+    const names = (buffer: Buffer) => {
+      const found: string[] = [];
+      // Walking the local headers as a streaming reader does (APPNOTE 6.3.10 §4.3.7).
+      for (const entry of readZipCentralDirectory(archive, 1e9).sort((a, b) => a.localHeaderOffset - b.localHeaderOffset)) {
+        const offset = buffer.indexOf(archive.subarray(entry.localHeaderOffset, entry.dataEnd));
+        found.push(`${offset}:${entry.name}`);
+      }
+      return found.sort((a, b) => Number(a.split(':')[0]) - Number(b.split(':')[0])).map((item) => item.split(':').slice(1).join(':'));
+    };
+    const first = ['[Content_Types].xml', '_rels/.rels', 'xl/workbook.xml', 'xl/_rels/workbook.xml.rels', 'xl/styles.xml', 'xl/sharedStrings.xml'];
+    const reordered = withPartsFirst(archive, 1e9, first, (name) => name.startsWith('xl/worksheets/'));
+    expect(reordered.length).toBe(archive.length);
+    const order = names(reordered).filter((name) => !name.endsWith('/'));
+    const present = first.filter((name) => order.includes(name));
+    expect(present).toContain('xl/workbook.xml');
+    expect(order.slice(0, present.length)).toEqual(present);
+    expect(order[present.length]).toBe('xl/worksheets/sheet1.xml');
+    expect(names(archive).filter((name) => !name.endsWith('/')).indexOf('xl/workbook.xml')).toBeGreaterThan(names(archive).indexOf('xl/worksheets/sheet1.xml'));
+  });
+});
+

@@ -1,9 +1,10 @@
 import { Readable } from 'node:stream';
 import ExcelJS from 'exceljs';
 import Papa from 'papaparse';
-import { maxImportRows } from '@shared/imports/import-limits';
+import { maxImportRows, maxUncompressedWorkbookBytes } from '@shared/imports/import-limits';
 import { HttpError } from '../../http/errors';
 import type { CheckedUpload } from './check-upload';
+import { withPartsFirst } from './zip-central-directory';
 
 /** A cell the spreadsheet holds but that has no usable value (an error, a formula never calculated). */
 export class CellFault {
@@ -31,6 +32,20 @@ export interface SheetSurvey {
  * learn which part each worksheet comes from.
  */
 const READER_OPTIONS = { worksheets: 'emit', sharedStrings: 'cache', styles: 'cache', hyperlinks: 'ignore', entries: 'emit' } as const;
+/**
+ * What exceljs's streaming reader must have read before a worksheet: the workbook (without it the reader
+ * fails on the first worksheet), its relationships, styles (for dates) and shared strings (without them it
+ * copies each worksheet to a temporary file and parses it at the end). Spreadsheet programs and exceljs's own
+ * writer put several of these after the worksheets, so the archive is handed to the reader reordered.
+ */
+const READER_FIRST_PARTS = ['[Content_Types].xml', '_rels/.rels', 'xl/workbook.xml', 'xl/_rels/workbook.xml.rels', 'xl/styles.xml', 'xl/sharedStrings.xml'];
+const isWorksheetPart = (name: string) => /^xl\/worksheets\/sheet\d+\.xml$/.test(name);
+/**
+ * exceljs's streaming reader (over unzipper 0.10) now and then ends its walk of the archive before the last
+ * parts, which are why the worksheets come right after the parts above (theme and document properties last).
+ * A read that fails before anything reached its visitor is started again; after that, it is refused.
+ */
+const READ_ATTEMPTS = 3;
 
 interface ExcelRow {
   number: number;
@@ -140,34 +155,56 @@ async function readRows(upload: CheckedUpload, csvSheetName: string, columns: re
     readCsvRows(upload.text, csvSheetName, columns, visitor);
     return;
   }
-  const reader = new ExcelJS.stream.xlsx.WorkbookReader(Readable.from(upload.buffer), READER_OPTIONS);
+  const archive = withPartsFirst(upload.buffer, maxUncompressedWorkbookBytes, READER_FIRST_PARTS, isWorksheetPart);
+  for (let attempt = 1; ; attempt += 1) {
+    // Whether anything reached the visitor: until then a failed read can start over unnoticed.
+    let reached = false;
+    const watched: RowVisitor = {
+      onSheet: (name) => ((reached = true), visitor.onSheet(name)),
+      onHeader: (headers) => ((reached = true), visitor.onHeader(headers)),
+      onRow: (row) => ((reached = true), visitor.onRow(row)),
+    };
+    try {
+      const sheetsRead = await readWorkbookRows(upload, archive, columns, watched);
+      if (sheetsRead < upload.sheetNames.size) throw new Error(`the reader handed over ${sheetsRead} of ${upload.sheetNames.size} worksheets`);
+      return;
+    } catch (error) {
+      if (error instanceof HttpError) throw error;
+      if (reached || attempt === READ_ATTEMPTS) {
+        const message = 'the workbook could not be read (it may be damaged)';
+        throw new HttpError(400, 'validation_error', `The file cannot be imported: ${message}.`, { file: message });
+      }
+    }
+  }
+}
+
+/** Walks the workbook's worksheets with exceljs's streaming reader; returns how many it handed over. */
+async function readWorkbookRows(upload: CheckedUpload & { format: 'xlsx' }, archive: Buffer, columns: readonly number[] | undefined, visitor: RowVisitor): Promise<number> {
+  const reader = new ExcelJS.stream.xlsx.WorkbookReader(Readable.from(archive), READER_OPTIONS);
   // exceljs names a worksheet only when it happened to read the workbook's parts first, so the name comes from
   // the check of the upload, by the part number the reader announces just before it hands the worksheet over.
   let part: number | null = null;
   (reader as unknown as NodeJS.EventEmitter).on('entry', (entry: { type?: string; id?: string | number }) => {
     if (entry.type === 'worksheet') part = Number(entry.id);
   });
-  try {
-    for await (const worksheet of reader) {
-      const sheet = worksheet as unknown as AsyncIterable<ExcelRow> & { name: string };
-      const wanted = visitor.onSheet((part === null ? undefined : upload.sheetNames.get(part)) ?? sheet.name);
-      let headerSeen = false;
-      for await (const row of sheet) {
-        if (!wanted || !Array.isArray(row.values) || !hasExcelContent(row.values)) continue;
-        if (!headerSeen) {
-          visitor.onHeader(excelCells(row.values).map(headerText));
-          headerSeen = true;
-          continue;
-        }
-        // Only the columns asked for are converted: the rest of a wide sheet costs nothing a row.
-        visitor.onRow({ rowNumber: row.number, cells: columns === undefined ? excelCells(row.values) : excelCellsAt(row.values, columns) });
+  let sheetsRead = 0;
+  for await (const worksheet of reader) {
+    sheetsRead += 1;
+    const sheet = worksheet as unknown as AsyncIterable<ExcelRow> & { name: string };
+    const wanted = visitor.onSheet((part === null ? undefined : upload.sheetNames.get(part)) ?? sheet.name);
+    let headerSeen = false;
+    for await (const row of sheet) {
+      if (!wanted || !Array.isArray(row.values) || !hasExcelContent(row.values)) continue;
+      if (!headerSeen) {
+        visitor.onHeader(excelCells(row.values).map(headerText));
+        headerSeen = true;
+        continue;
       }
+      // Only the columns asked for are converted: the rest of a wide sheet costs nothing a row.
+      visitor.onRow({ rowNumber: row.number, cells: columns === undefined ? excelCells(row.values) : excelCellsAt(row.values, columns) });
     }
-  } catch (error) {
-    if (error instanceof HttpError) throw error;
-    const message = 'the workbook could not be read (it may be damaged)';
-    throw new HttpError(400, 'validation_error', `The file cannot be imported: ${message}.`, { file: message });
   }
+  return sheetsRead;
 }
 
 function readCsvRows(text: string, sheetName: string, columns: readonly number[] | undefined, visitor: RowVisitor): void {

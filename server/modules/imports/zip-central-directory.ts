@@ -219,3 +219,30 @@ function inflateCounting(data: Buffer, entry: ZipEntry, keep: boolean): Promise<
     inflater.end(data);
   });
 }
+
+/**
+ * The same archive with its parts in another order, for a reader that walks the local headers from the
+ * start: first the parts named in `first` (in that order), then those `next` picks, then the rest, each
+ * group in file order. Each entry's bytes (local header, data and any data descriptor) run from its local
+ * header to the next one's, since a checked archive's entries tile it; the central directory follows
+ * unchanged. Its offsets then no longer match, which a reader walking the local headers never looks at.
+ *
+ * @param archive the whole file, already checked by {@link readZipCentralDirectory}
+ * @param maxUncompressedBytes the cap it was checked with
+ * @param first the parts to put first, in this order
+ * @param next which of the other parts come right after them
+ * @returns the reordered archive, or the archive itself when it is already in that order
+ */
+export function withPartsFirst(archive: Buffer, maxUncompressedBytes: number, first: readonly string[], next: (name: string) => boolean): Buffer {
+  const directoryOffset = archive.readUInt32LE(findEndRecord(archive) + 16);
+  const inFileOrder = [...readZipCentralDirectory(archive, maxUncompressedBytes)].sort((a, b) => a.localHeaderOffset - b.localHeaderOffset);
+  const records = inFileOrder.map((entry, index) => ({
+    name: entry.name,
+    start: entry.localHeaderOffset,
+    end: index + 1 < inFileOrder.length ? inFileOrder[index + 1].localHeaderOffset : directoryOffset,
+  }));
+  const rank = (name: string) => (first.includes(name) ? first.indexOf(name) : first.length + (next(name) ? 0 : 1));
+  const reordered = [...records].sort((a, b) => rank(a.name) - rank(b.name) || a.start - b.start);
+  if (reordered.every((record, index) => record === records[index])) return archive;
+  return Buffer.concat([...reordered.map((record) => archive.subarray(record.start, record.end)), archive.subarray(directoryOffset)]);
+}
