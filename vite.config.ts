@@ -18,6 +18,8 @@ export default defineConfig({
     outDir: 'dist/client',
     emptyOutDir: true,
     sourcemap: false,
+    // Read by the server to name each route's chunks in the page it sends (server/http/client-page.ts).
+    manifest: true,
   },
   server: {
     port: 5173,

@@ -5,6 +5,7 @@ import express, { type Express } from 'express';
 import session from 'express-session';
 import helmet from 'helmet';
 import type { DataSource } from 'typeorm';
+import { clientPages } from './http/client-page';
 import { requireCsrfToken } from './http/csrf';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { assaysRouter } from './modules/assays/assays.router';
@@ -135,9 +136,11 @@ export function createApp(dataSource: DataSource, options: AppOptions): Express 
     // Vite puts a content hash in every file name under assets/, so those never change; index.html may.
     app.use('/assets', express.static(join(clientDir, 'assets'), { index: false, immutable: true, maxAge: '1y', fallthrough: false }));
     app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
-    // Client routes (Express 5 syntax for "everything else").
-    app.get('/{*splat}', (_req, res) => {
-      res.sendFile(join(clientDir, 'index.html'));
+    // Client routes (Express 5 syntax for "everything else"). The page names the hashed files of the
+    // current build, so the browser asks again each time (no-cache) and mostly gets a 304.
+    const clientPage = clientPages(clientDir);
+    app.get('/{*splat}', (req, res) => {
+      res.type('html').set('Cache-Control', 'no-cache').send(clientPage(req.path));
     });
   }
 

@@ -14,8 +14,21 @@ beforeAll(async () => {
   testApp = await createTestApp();
   const clientDir = join(testApp.dataDir, 'client');
   mkdirSync(join(clientDir, 'assets'), { recursive: true });
-  writeFileSync(join(clientDir, 'index.html'), '<!doctype html><title>Kcatalog</title><div id="root"></div>');
+  writeFileSync(join(clientDir, 'index.html'), '<!doctype html><html><head><title>Kcatalog</title></head><body><div id="root"></div></body></html>');
   writeFileSync(join(clientDir, 'assets', 'registry-Ab12Cd34.js'), script);
+  // The shape of Vite's build manifest (vite.dev/guide/backend-integration), cut down to a few chunks.
+  mkdirSync(join(clientDir, '.vite'));
+  writeFileSync(
+    join(clientDir, '.vite', 'manifest.json'),
+    JSON.stringify({
+      'index.html': { file: 'assets/index-Main1234.js', isEntry: true, imports: ['_react-Shared12.js'], assets: ['assets/sans-latin-wght-normal-Font1234.woff2', 'assets/sans-latin-ext-wght-normal-Font5678.woff2'] },
+      '_react-Shared12.js': { file: 'assets/react-Shared12.js' },
+      '_grid-Grid1234.js': { file: 'assets/grid-Grid1234.js', imports: ['_react-Shared12.js'] },
+      'src/features/registry/api/prefetch-registry.ts': { file: 'assets/prefetch-registry-Pre12345.js', isDynamicEntry: true, imports: ['index.html'] },
+      'src/app/routes/registry.tsx': { file: 'assets/registry-Ab12Cd34.js', isDynamicEntry: true, imports: ['index.html', '_grid-Grid1234.js'] },
+      'src/app/routes/variant.tsx': { file: 'assets/variant-Var12345.js', isDynamicEntry: true, imports: ['index.html'] },
+    }),
+  );
   app = createApp(testApp.dataSource, { sessionSecret: testSecret, clientDir });
 });
 
@@ -42,5 +55,23 @@ describe('the built client', () => {
     expect((await request(app).get('/registry?campaignId=1').expect(200)).text).toContain('<div id="root">');
     const health = await request(app).get('/api/health').set('Accept-Encoding', 'gzip').expect(200);
     expect(health.headers['content-encoding']).toBeUndefined();
+  });
+
+  it("names the route's own chunks and the first fonts in the page, not the main bundle's (modulepreload: HTML Living Standard §4.6.7)", async () => {
+    const registry = (await request(app).get('/registry?sort=ddg').expect(200)).text;
+    const preloaded = [...registry.matchAll(/<link rel="modulepreload" href="([^"]+)">/g)].map((found) => found[1]);
+    expect(preloaded.sort()).toEqual(['/assets/grid-Grid1234.js', '/assets/prefetch-registry-Pre12345.js', '/assets/registry-Ab12Cd34.js']);
+    expect(registry).toContain('<link rel="preload" href="/assets/sans-latin-wght-normal-Font1234.woff2" as="font" type="font/woff2" crossorigin>');
+    expect(registry).not.toContain('latin-ext');
+
+    expect((await request(app).get('/variants/12').expect(200)).text).toContain('<link rel="modulepreload" href="/assets/variant-Var12345.js">');
+    const other = (await request(app).get('/no-such-page').expect(200)).text;
+    expect(other).not.toContain('modulepreload');
+    expect(other).toContain('as="font"');
+    expect((await request(app).get('/registry').expect(200)).headers['cache-control']).toBe('no-cache');
+  });
+
+  it('does not serve the build manifest', async () => {
+    expect((await request(app).get('/.vite/manifest.json').expect(200)).text).toContain('<div id="root">');
   });
 });

@@ -13,7 +13,7 @@ import { ColumnPicker } from '@/features/registry/components/column-picker';
 import { CopyLinkButton } from '@/features/registry/components/copy-link-button';
 import { RegistryFilterBar } from '@/features/registry/components/registry-filter-bar';
 import { RoleLegend } from '@/features/registry/components/role-legend';
-import { VariantGrid } from '@/features/registry/components/variant-grid';
+import { VariantList } from '@/features/registry/components/variant-list';
 import { parseRegistryView, registryViewSearch, variantListQuery, type RegistryView } from '@/features/registry/registry-view';
 import { roleStyle } from '@/features/sequence-map/role-style';
 
@@ -74,7 +74,7 @@ export default function RegistryRoute() {
         roleStyles={roleStyle}
         onChange={(filters) => showView({ ...view, filters })}
       />
-      <VariantGrid
+      <VariantList
         view={view}
         energyUnit={energyUnit}
         roleStyles={roleStyle}
