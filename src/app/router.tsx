@@ -8,7 +8,6 @@ import { RequirePermission, SignedInLayout } from './guards';
 
 const SignInRoute = lazy(() => import('./routes/sign-in'));
 const OverviewRoute = lazy(() => import('./routes/overview'));
-const RegistryRoute = lazy(() => import('./routes/registry'));
 const ReviewRoute = lazy(() => import('./routes/review'));
 const VariantRoute = lazy(() => import('./routes/variant'));
 const RegisterVariantRoute = lazy(() => import('./routes/register-variant'));
@@ -36,23 +35,23 @@ const page = (element: ReactNode) => <Suspense fallback={<LoadingState />}>{elem
 
 // The loaders start requests and return at once, so nothing waits on them: the session is asked for when
 // the navigation starts, before page code loading in the meantime can hold up the first render that would
-// otherwise ask for it; the registry's first rows and its code (with the grid) are asked for alongside,
-// rather than one after the other once the page has rendered. A failure here is met again, and shown, by the page.
+// otherwise ask for it; the registry's first rows are asked for alongside its code, rather than once the
+// page has rendered. A failure here is met again, and shown, by the page.
 function sessionLoader() {
   void queryClient.prefetchQuery(getMeQueryOptions());
   return null;
 }
 
 function registryLoader({ request }: LoaderFunctionArgs) {
-  // The rows are asked for first: evaluating the page's code (mostly the grid) holds the main thread for a
-  // good while, and the requests should be on their way by then.
   import('@/features/registry/api/prefetch-registry')
     .then(({ prefetchRegistry }) => void prefetchRegistry(queryClient, new URL(request.url).searchParams))
-    .catch(() => undefined)
-    .then(() => import('./routes/registry'))
     .catch(() => undefined);
   return null;
 }
+
+// The registry's page comes through the router's own `lazy` rather than React.lazy: the router loads it
+// before rendering, while React holds back content that follows a Suspense fallback for up to 300 ms.
+const registryPage = () => import('./routes/registry').then((module) => ({ Component: module.default }));
 
 const router = createBrowserRouter([
   { path: paths.signIn.path, element: page(<SignInRoute />) },
@@ -66,7 +65,7 @@ const router = createBrowserRouter([
     hydrateFallbackElement: <LoadingState label="Checking your session…" />,
     children: [
       { path: paths.home.path, element: page(<OverviewRoute />) },
-      { path: paths.registry.path, element: page(<RegistryRoute />), loader: registryLoader, hydrateFallbackElement: <LoadingState /> },
+      { path: paths.registry.path, lazy: registryPage, loader: registryLoader, hydrateFallbackElement: <LoadingState /> },
       {
         path: paths.review.path,
         element: page(
