@@ -40,14 +40,15 @@ export function VariantList({ view, energyUnit, roleStyles, onSortChange, toolba
   const box = useRef<HTMLDivElement>(null);
 
   const firstBlock = useQuery({ ...getVariantPageQueryOptions(variantListParams(view.filters, view.sort, 1, registryBlockSize)), enabled: !gridShown });
-  const firstBlockSettled = !firstBlock.isPending;
+  const firstBlockRead = firstBlock.isSuccess;
 
   // The grid's code is asked for once the first rows are painted (a frame, then a task after it), so its
-  // half second of building comes after them rather than before. Not through React.lazy and Suspense:
+  // half second of building comes after them rather than before. After a failed first read it waits for
+  // "Try again", so the error stays until the reader asks. Not through React.lazy and Suspense:
   // React holds back content that follows a fallback for up to 300 ms, which would keep the grid waiting.
   const gridPending = grid === null;
   useEffect(() => {
-    if (!gridPending || !firstBlockSettled) return;
+    if (!gridPending || !firstBlockRead) return;
     let cancelled = false;
     let timer = 0;
     const frame = requestAnimationFrame(() => {
@@ -63,7 +64,7 @@ export function VariantList({ view, energyUnit, roleStyles, onSortChange, toolba
       cancelAnimationFrame(frame);
       window.clearTimeout(timer);
     };
-  }, [gridPending, firstBlockSettled]);
+  }, [gridPending, firstBlockRead]);
 
   // Once the grid has read its rows, it is shown when it has drawn them.
   const gridLoaded = gridLoad !== null && gridLoad.kind !== 'loading';
@@ -117,7 +118,9 @@ export function VariantList({ view, energyUnit, roleStyles, onSortChange, toolba
             onGridReady={handleGridReady}
           />
         )}
-        {!gridShown && firstBlock.isSuccess && firstBlock.data.rows.length > 0 && <FirstRows columns={columns} rows={firstBlock.data.rows} visibleColumns={view.columns} sort={view.sort} />}
+        {!gridShown && (firstBlock.isPending || (firstBlock.isSuccess && firstBlock.data.rows.length > 0)) && (
+          <FirstRows columns={columns} rows={firstBlock.data?.rows ?? null} visibleColumns={view.columns} sort={view.sort} />
+        )}
         {load.kind === 'loaded' && load.total === 0 && (
           <div className="absolute inset-x-4 top-16 z-20">
             {hasFilters(view.filters) ? (
