@@ -86,16 +86,12 @@ export function VariantList({ view, energyUnit, roleStyles, onSortChange, toolba
     gridApi.current = api;
   }, []);
 
-  const load: LoadState =
-    grid && 'failed' in grid
-      ? { kind: 'failed', error: grid.failed }
-      : gridShown && gridLoad
-      ? gridLoad
-      : firstBlock.isSuccess
-        ? { kind: 'loaded', total: firstBlock.data.total }
-        : firstBlock.isError
-          ? { kind: 'failed', error: firstBlock.error }
-          : { kind: 'loading' };
+  // The grid's own reading once it is shown; before that, the first block's.
+  let load: LoadState = { kind: 'loading' };
+  if (grid && 'failed' in grid) load = { kind: 'failed', error: grid.failed };
+  else if (gridShown && gridLoad) load = gridLoad;
+  else if (firstBlock.isSuccess) load = { kind: 'loaded', total: firstBlock.data.total };
+  else if (firstBlock.isError) load = { kind: 'failed', error: firstBlock.error };
 
   return (
     <div className="space-y-2">
