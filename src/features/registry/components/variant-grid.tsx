@@ -16,7 +16,6 @@ import {
 import { AgGridReact } from 'ag-grid-react';
 import { useCallback, useEffect, useMemo, useState } from 'react';
 import { useNavigate } from 'react-router-dom';
-import type { EnergyUnit } from '@shared/schemas/auth';
 import type { VariantListRowDto } from '@shared/schemas/variant';
 import { paths } from '@/config/paths';
 import { getVariantPageQueryOptions } from '../api/get-variant-page';
@@ -32,8 +31,7 @@ import {
   type RegistryView,
 } from '../registry-view';
 import { registryGridTheme } from './grid-theme';
-import type { RoleStyles } from './variant-cells';
-import { columnDefinitions, columnOfSortKey, sortKeyOfColumn } from './variant-columns';
+import { columnOfSortKey, sortKeyOfColumn } from './variant-columns';
 
 // Only what the grid uses beyond the core (which brings sorting, pinning, resizing and loading skeletons):
 // the infinite row model, cell classes, and the column-state calls that keep the grid and the URL in step.
@@ -66,8 +64,8 @@ export type LoadState = { kind: 'loading' } | { kind: 'loaded'; total: number } 
 
 export interface VariantGridProps {
   view: RegistryView;
-  energyUnit: EnergyUnit;
-  roleStyles: RoleStyles;
+  /** From columnDefinitions, for the view the page opened with; kept the same between renders. */
+  columns: ColDef<Row>[];
   /** The reader sorted by a column header. */
   onSortChange: (sort: RegistrySort) => void;
   onLoadChange: (load: LoadState) => void;
@@ -82,13 +80,10 @@ export interface VariantGridProps {
  * column change from the URL (a shared link, back and forward) is applied to the grid's column state.
  * Loaded on its own (it is most of the registry's code), after the first rows are drawn.
  */
-export default function VariantGrid({ view, energyUnit, roleStyles, onSortChange, onLoadChange, onGridReady }: VariantGridProps) {
+export default function VariantGrid({ view, columns, onSortChange, onLoadChange, onGridReady }: VariantGridProps) {
   const queryClient = useQueryClient();
   const navigate = useNavigate();
   const [gridApi, setGridApi] = useState<GridApi<Row> | null>(null);
-  // Initial sort and visibility only: later changes go through the column state (effects below).
-  const [initialView] = useState(view);
-  const columnDefs = useMemo(() => columnDefinitions(energyUnit, roleStyles, initialView), [energyUnit, roleStyles, initialView]);
 
   const filtersKey = JSON.stringify(view.filters);
   const datasource = useMemo<IDatasource>(() => {
@@ -162,7 +157,7 @@ export default function VariantGrid({ view, energyUnit, roleStyles, onSortChange
       maxBlocksInCache={MAX_BLOCKS_IN_CACHE}
       infiniteInitialRowCount={registryBlockSize}
       getRowId={rowId}
-      columnDefs={columnDefs}
+      columnDefs={columns}
       defaultColDef={defaultColDef}
       suppressMultiSort
       // Our own empty and error states sit over the grid, in our words.

@@ -31,6 +31,7 @@ export interface VariantListProps {
  * and error states.
  */
 export function VariantList({ view, energyUnit, roleStyles, onSortChange, toolbar }: VariantListProps) {
+  // Initial sort and visibility only: later changes go through the grid's column state.
   const [initialView] = useState(view);
   const columns = useMemo(() => columnDefinitions(energyUnit, roleStyles, initialView), [energyUnit, roleStyles, initialView]);
   const [gridLoad, setGridLoad] = useState<LoadState | null>(null);
@@ -107,8 +108,7 @@ export function VariantList({ view, energyUnit, roleStyles, onSortChange, toolba
         {grid && 'Grid' in grid && (
           <grid.Grid
             view={view}
-            energyUnit={energyUnit}
-            roleStyles={roleStyles}
+            columns={columns}
             onSortChange={onSortChange}
             onLoadChange={setGridLoad}
             onGridReady={handleGridReady}
